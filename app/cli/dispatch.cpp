@@ -1,0 +1,37 @@
+#include "app/cli/dispatch.hpp"
+
+#include <cstdio>
+#include <string_view>
+
+namespace soffit::cli {
+
+int run_fit(int argc, char** argv);  // fit_command.cpp
+
+namespace {
+void print_usage() {
+  std::fputs(
+      "usage: soffit fit FILE [--shape NAME|auto] [--sigma-mm S] [--springing-z Z]\n"
+      "                       [--seed K] [--mc N] [--robust]\n"
+      "Soffit holds survey data, not an assessment: local codes and a qualified\n"
+      "engineer decide what the geometry means.\n",
+      stderr);
+}
+}  // namespace
+
+int run(int argc, char** argv) {
+  if (argc < 2) {
+    print_usage();
+    return 2;
+  }
+  std::string_view verb = argv[1];
+  if (verb == "fit") return run_fit(argc - 1, argv + 1);
+  if (verb == "--help" || verb == "-h" || verb == "help") {
+    print_usage();
+    return 0;
+  }
+  std::fprintf(stderr, "soffit: unknown command '%s'\n", argv[1]);
+  print_usage();
+  return 2;
+}
+
+}  // namespace soffit::cli

@@ -1,0 +1,233 @@
+#include "geometry/analysis/profile_fit.hpp"
+
+#include <Eigen/Cholesky>
+#include <Eigen/Eigenvalues>
+#include <algorithm>
+#include <cmath>
+
+namespace soffit {
+
+namespace {
+
+constexpr double kTukeyC = 4.685;  // 95% efficiency at the normal (Tukey biweight)
+constexpr int kMaxRobustRounds = 30;
+
+NormalEquationsFn make_problem(const ShapeFamily& family, const std::vector<Point2>& points,
+                               const std::vector<double>& weights) {
+  return [&family, &points, &weights](const SolverVector& params, bool want_derivatives,
+                                      NormalEquations& ne) {
+    const Eigen::Index n = params.size();
+    double gradient[kMaxSolverParameters];
+    ne.cost = 0.0;
+    ne.residual_count = 0;
+    if (want_derivatives) {
+      ne.jtj.setZero(n, n);
+      ne.jtr.setZero(n);
+    }
+    for (size_t i = 0; i < points.size(); ++i) {
+      const double w = weights[i];
+      if (w <= 0.0) continue;
+      const double d =
+          distance_with_gradient(family, params, points[i], want_derivatives ? gradient : nullptr);
+      if (!std::isfinite(d)) return false;
+      ne.cost += w * d * d;
+      ++ne.residual_count;
+      if (want_derivatives) {
+        for (Eigen::Index a = 0; a < n; ++a) {
+          ne.jtr[a] += w * gradient[a] * d;
+          for (Eigen::Index b = 0; b <= a; ++b) ne.jtj(a, b) += w * gradient[a] * gradient[b];
+        }
+      }
+    }
+    if (want_derivatives) ne.jtj = ne.jtj.selfadjointView<Eigen::Lower>();
+    return true;
+  };
+}
+
+// Smallest over largest spread of the points about their centroid: zero for
+// points on one straight line, whatever its direction.
+double straightness(const std::vector<Point2>& points) {
+  Eigen::Vector2d mean = Eigen::Vector2d::Zero();
+  for (const Point2& p : points) mean += Eigen::Vector2d(p.x, p.z);
+  mean /= static_cast<double>(points.size());
+  Eigen::Matrix2d scatter = Eigen::Matrix2d::Zero();
+  for (const Point2& p : points) {
+    const Eigen::Vector2d d = Eigen::Vector2d(p.x, p.z) - mean;
+    scatter += d * d.transpose();
+  }
+  Eigen::SelfAdjointEigenSolver<Eigen::Matrix2d> eig(scatter);
+  const double big = eig.eigenvalues()[1];
+  return big > 0.0 ? std::sqrt(std::max(0.0, eig.eigenvalues()[0]) / big) : 0.0;
+}
+
+double median(std::vector<double> v) {
+  if (v.empty()) return 0.0;
+  const size_t mid = v.size() / 2;
+  std::nth_element(v.begin(), v.begin() + static_cast<long>(mid), v.end());
+  double m = v[mid];
+  if (v.size() % 2 == 0) m = (m + *std::max_element(v.begin(), v.begin() + static_cast<long>(mid))) / 2;
+  return m;
+}
+
+}  // namespace
+
+double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
+                              double* gradient) {
+  if (!gradient || family.has_analytic_gradient()) return family.signed_distance(params, p, gradient);
+  const double d = family.signed_distance(params, p, nullptr);
+  SolverVector q = params;
+  for (Eigen::Index j = 0; j < params.size(); ++j) {
+    const double h = 1e-7 * std::max(1.0, std::abs(params[j]));
+    q[j] = params[j] + h;
+    const double up = family.signed_distance(q, p, nullptr);
+    q[j] = params[j] - h;
+    const double down = family.signed_distance(q, p, nullptr);
+    q[j] = params[j];
+    if (std::isfinite(up) && std::isfinite(down))
+      gradient[j] = (up - down) / (2 * h);
+    else if (std::isfinite(up))
+      gradient[j] = (up - d) / h;
+    else
+      gradient[j] = (d - down) / h;
+  }
+  return d;
+}
+
+double end_readings_level(const std::vector<Point2>& points) {
+  const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
+                                            [](Point2 a, Point2 b) { return a.x < b.x; });
+  return (lo->z + hi->z) / 2.0;
+}
+
+std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::vector<Point2>& points,
+                                         const std::vector<double>& weights,
+                                         const SolverVector& start) {
+  SolverOptions options;
+  options.max_iterations = 60;
+  options.relative_step_tolerance = 1e-10;
+  options.relative_cost_tolerance = 1e-12;
+  const SolverResult r = levenberg_marquardt(make_problem(family, points, weights), start, options);
+  if (r.status != SolverStatus::converged) return std::nullopt;
+  return r.params;
+}
+
+FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const FitOptions& options) {
+  FitOutcome outcome;
+  ShapeFit fit;
+  fit.family = &family;
+  const size_t total = readings.size();
+  fit.residuals.assign(total, 0.0);
+  fit.sigmas.assign(total, options.fallback_sigma_m);
+  fit.weights.assign(total, 0.0);
+  fit.used.assign(total, false);
+
+  std::vector<Point2> points;
+  std::vector<size_t> index;  // points[k] is readings[index[k]]
+  std::vector<double> inverse_variance;
+  for (size_t i = 0; i < total; ++i) {
+    const Reading& r = readings[i];
+    if (r.sigma > 0.0) fit.sigmas[i] = r.sigma;
+    if (r.excluded || r.check) continue;
+    fit.used[i] = true;
+    points.push_back({r.x, r.z});
+    index.push_back(i);
+    inverse_variance.push_back(1.0 / (fit.sigmas[i] * fit.sigmas[i]));
+  }
+  const int p = family.parameter_count();
+  const int n = static_cast<int>(points.size());
+  if (n <= p) {
+    outcome.error = std::to_string(n) + " usable readings are too few for a " +
+                    std::string(family.name()) + " fit, which has " + std::to_string(p) +
+                    " parameters: at least " + std::to_string(p + 1) + " are needed";
+    return outcome;
+  }
+  if (straightness(points) < 1e-6) {
+    outcome.error = "the readings lie on a straight line: no arch can be fitted to them";
+    return outcome;
+  }
+  const auto start = family.initial_guess(points);
+  if (!start) {
+    outcome.error = "no starting shape found: the readings do not look like a " +
+                    std::string(family.name()) + " arch";
+    return outcome;
+  }
+
+  std::vector<double> robust(static_cast<size_t>(n), 1.0);
+  std::vector<double> weights = inverse_variance;
+  SolverResult solved = levenberg_marquardt(make_problem(family, points, weights), *start);
+  for (int round = 0; options.robust && solved.ok() && round < kMaxRobustRounds; ++round) {
+    // Tukey's biweight on residuals in units of σ times a robust scale (never
+    // below 1: the stated precision is the floor).
+    std::vector<double> standardized(static_cast<size_t>(n));
+    for (int k = 0; k < n; ++k) {
+      const double d = family.signed_distance(solved.params, points[static_cast<size_t>(k)], nullptr);
+      standardized[static_cast<size_t>(k)] = d * std::sqrt(inverse_variance[static_cast<size_t>(k)]);
+    }
+    std::vector<double> magnitudes(standardized.size());
+    std::transform(standardized.begin(), standardized.end(), magnitudes.begin(),
+                   [](double u) { return std::abs(u); });
+    const double scale = std::max(1.0, median(magnitudes) / 0.6745);
+    double change = 0.0;
+    for (size_t k = 0; k < robust.size(); ++k) {
+      const double u = standardized[k] / (kTukeyC * scale);
+      const double w = std::abs(u) < 1.0 ? (1 - u * u) * (1 - u * u) : 0.0;
+      change = std::max(change, std::abs(w - robust[k]));
+      robust[k] = w;
+      weights[k] = w * inverse_variance[k];
+    }
+    if (change < 1e-4) break;
+    const SolverResult next = levenberg_marquardt(make_problem(family, points, weights), solved.params);
+    if (!next.ok()) break;
+    solved = next;
+  }
+  if (!solved.ok()) {
+    outcome.error = "the " + std::string(family.name()) + " fit failed: " + solved.message;
+    return outcome;
+  }
+
+  fit.params = solved.params;
+  fit.iterations = solved.iterations;
+  fit.covariance = solved.jtj.ldlt().solve(SolverMatrix::Identity(p, p));
+  if (family.springing_from_shape()) {
+    fit.springing_z = 0.0;  // the outline takes it from the parameters
+  } else if (options.springing_z) {
+    fit.springing_z = *options.springing_z;
+  } else {
+    fit.springing_z = end_readings_level(points);
+    fit.springing_from_ends = true;
+  }
+  const auto outline = family.outline(fit.params, fit.springing_z);
+  if (!outline) {
+    outcome.error = "the fitted " + std::string(family.name()) +
+                    " curve does not reach the springing level: check the springing level";
+    return outcome;
+  }
+  fit.outline = *outline;
+  fit.springing_z = outline->z_springing;
+
+  double sum_sq = 0.0;
+  int effective = 0;
+  for (size_t i = 0; i < total; ++i)
+    fit.residuals[i] = family.signed_distance(fit.params, {readings[i].x, readings[i].z}, nullptr);
+  for (int k = 0; k < n; ++k) {
+    const size_t i = index[static_cast<size_t>(k)];
+    const double d = fit.residuals[i];
+    fit.weights[i] = robust[static_cast<size_t>(k)];
+    fit.chi2 += weights[static_cast<size_t>(k)] * d * d;
+    sum_sq += d * d;
+    fit.max_abs_m = std::max(fit.max_abs_m, std::abs(d));
+    if (fit.weights[i] > 0.0) ++effective;
+    if (fit.weights[i] < 0.5) fit.downweighted.push_back(i);
+  }
+  fit.n_used = n;
+  fit.dof = std::max(1, effective - p);
+  fit.reduced_chi2 = fit.chi2 / fit.dof;
+  fit.rms_m = std::sqrt(sum_sq / n);
+  const double log_term = n * std::log(std::max(fit.chi2, 1e-300) / n);
+  fit.aic = log_term + 2.0 * p;
+  fit.bic = log_term + p * std::log(static_cast<double>(n));
+  outcome.fit = std::move(fit);
+  return outcome;
+}
+
+}  // namespace soffit

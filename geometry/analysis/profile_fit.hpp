@@ -1,0 +1,75 @@
+#pragma once
+// Fitting one shape family to a section's readings: weighted orthogonal-distance
+// least squares by Levenberg–Marquardt, optionally robust (iteratively
+// reweighted with Tukey's biweight, so a reading taken on a protruding voussoir
+// stops pulling the curve and is reported instead).
+//
+// What the covariance assumes: readings independent, isotropic Gaussian errors
+// with the stated σ, the model exact, the fit at an interior minimum with every
+// parameter determined. It is (JᵀWJ)⁻¹ with W = diag(1/σ²); it is NOT scaled by
+// the reduced χ² here (uncertainty.hpp decides whether to widen it).
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "geometry/core/reading.hpp"
+#include "geometry/shapes/shape_family.hpp"
+
+namespace soffit {
+
+struct FitOptions {
+  // Springing level for families whose shape does not fix it (segmental,
+  // parabolic). Empty: the mean level of the two end readings.
+  std::optional<double> springing_z;
+  bool robust = false;
+  double fallback_sigma_m = 0.003;  // for readings that state no σ
+};
+
+struct ShapeFit {
+  const ShapeFamily* family = nullptr;
+  SolverVector params;
+  SolverMatrix covariance;      // (JᵀWJ)⁻¹ at the solution, a-priori σ
+  double springing_z = 0.0;     // level used for the outline
+  bool springing_from_ends = false;
+  Outline outline;
+  int iterations = 0;
+
+  // Per reading, in the order of the input (excluded and check readings too).
+  std::vector<double> residuals;  // signed orthogonal distance, m (+ above the intrados)
+  std::vector<double> sigmas;     // σ used, m
+  std::vector<double> weights;    // robust weight in [0, 1]; 1 when not robust; 0 if not used
+  std::vector<bool> used;
+
+  int n_used = 0;
+  int dof = 0;
+  double chi2 = 0.0;            // Σ w (r/σ)² over the readings used
+  double reduced_chi2 = 0.0;    // chi2 / dof
+  double rms_m = 0.0;           // √(Σ r²/n), readings used, unweighted
+  double max_abs_m = 0.0;
+  double aic = 0.0, bic = 0.0;  // Gaussian likelihood with σ known up to one common scale
+  std::vector<size_t> downweighted;  // readings the robust fit set aside (weight < 0.5)
+};
+
+struct FitOutcome {
+  std::optional<ShapeFit> fit;
+  std::string error;  // why there is no fit
+};
+
+FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const FitOptions& options);
+
+// Refit from `start` to perturbed points with fixed weights, for Monte Carlo
+// draws: no robust loop, no bookkeeping. Empty when the fit fails.
+std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::vector<Point2>& points,
+                                         const std::vector<double>& weights,
+                                         const SolverVector& start);
+
+// Signed distance and its gradient; numeric (central differences) for
+// families without an analytic gradient.
+double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
+                              double* gradient);
+
+// The springing level of families that do not fix it: mean z of the readings
+// with the smallest and largest x among `points`.
+double end_readings_level(const std::vector<Point2>& points);
+
+}  // namespace soffit

@@ -1,0 +1,154 @@
+#include "geometry/analysis/shape_selection.hpp"
+
+#include <cmath>
+#include <sstream>
+
+#include "geometry/shapes/families.hpp"
+
+namespace soffit {
+
+namespace {
+
+constexpr double kSupportedDeltaAic = 2.0;
+constexpr double kAgreementSigmas = 2.0;
+
+int index_of(const ShapeSelection& s, const ShapeFamily& family) {
+  for (size_t i = 0; i < s.candidates.size(); ++i)
+    if (s.candidates[i].family == &family) return static_cast<int>(i);
+  return -1;
+}
+
+// Standard deviation of gᵀθ under the fit's covariance, scaled by the reduced χ²
+// when the scatter is larger than the stated σ allows for.
+double linear_sd(const ShapeFit& fit, const SolverVector& g) {
+  const double scale2 = std::max(1.0, fit.reduced_chi2);
+  return std::sqrt(std::max(0.0, scale2 * g.dot(fit.covariance * g)));
+}
+
+std::string fmt(double v) {
+  std::ostringstream s;
+  s.precision(3);
+  s << v;
+  return s.str();
+}
+
+// Does the chosen family's own test say the arch is semicircular? Fills `why`.
+bool reduces_to_semicircle(const ShapeFit& fit, const std::vector<double>& end_sigmas, std::string& why) {
+  const std::string_view name = fit.family->name();
+  const Eigen::Index p = fit.params.size();
+  SolverVector g = SolverVector::Zero(p);
+  double difference = 0.0, sd = 0.0;
+  if (name == "segmental") {
+    // Centre height minus the springing level from the end readings.
+    g[1] = 1.0;
+    difference = fit.params[1] - fit.springing_z;
+    const double level_var = fit.springing_from_ends
+                                 ? (end_sigmas[0] * end_sigmas[0] + end_sigmas[1] * end_sigmas[1]) / 4
+                                 : 0.0;
+    sd = std::sqrt(linear_sd(fit, g) * linear_sd(fit, g) + std::max(1.0, fit.reduced_chi2) * level_var);
+    why = "the circle's centre lies " + fmt(difference * 1000) + " mm from the springing level (sd " +
+          fmt(sd * 1000) + " mm)";
+  } else if (name == "elliptical") {
+    g[2] = 1.0;
+    g[3] = -1.0;
+    difference = fit.params[2] - fit.params[3];
+    sd = linear_sd(fit, g);
+    why = "the semi-axes differ by " + fmt(difference * 1000) + " mm (sd " + fmt(sd * 1000) + " mm)";
+  } else if (name == "pointed") {
+    g[3] = 1.0;
+    g[2] = -1.0;
+    difference = fit.params[3] - fit.params[2];
+    sd = linear_sd(fit, g);
+    why = "the arc radius exceeds the half-span by " + fmt(difference * 1000) + " mm (sd " +
+          fmt(sd * 1000) + " mm)";
+  } else if (name == "three-centred") {
+    difference = fit.outline.pieces[1].a - fit.params[4];
+    // Numerical gradient of R − r₁ with respect to the parameters.
+    for (Eigen::Index j = 0; j < p; ++j) {
+      const double h = 1e-6 * std::max(1.0, std::abs(fit.params[j]));
+      SolverVector up = fit.params, down = fit.params;
+      up[j] += h;
+      down[j] -= h;
+      const auto ou = fit.family->outline(up, 0.0), od = fit.family->outline(down, 0.0);
+      if (ou && od) g[j] = ((ou->pieces[1].a - up[4]) - (od->pieces[1].a - down[4])) / (2 * h);
+    }
+    sd = linear_sd(fit, g);
+    why = "the crown and haunch radii differ by " + fmt(difference * 1000) + " mm (sd " +
+          fmt(sd * 1000) + " mm)";
+  } else {
+    return false;
+  }
+  return std::abs(difference) <= kAgreementSigmas * sd;
+}
+
+}  // namespace
+
+ShapeSelection select_shape(const Readings& readings, const FitOptions& options) {
+  ShapeSelection s;
+  for (const ShapeFamily* family : shape_families()) {
+    ShapeCandidate c;
+    c.family = family;
+    FitOutcome outcome = fit_shape(*family, readings, options);
+    c.fit = std::move(outcome.fit);
+    c.error = std::move(outcome.error);
+    s.candidates.push_back(std::move(c));
+  }
+
+  double best_aic = INFINITY;
+  for (const ShapeCandidate& c : s.candidates)
+    if (c.fit) best_aic = std::min(best_aic, c.fit->aic);
+  if (!std::isfinite(best_aic)) {
+    s.reason = "no family could be fitted to these readings";
+    return s;
+  }
+  for (size_t i = 0; i < s.candidates.size(); ++i) {
+    const ShapeCandidate& c = s.candidates[i];
+    if (!c.fit || c.fit->aic > best_aic + kSupportedDeltaAic) continue;
+    if (s.chosen < 0) {
+      s.chosen = static_cast<int>(i);
+      continue;
+    }
+    const ShapeFamily& current = *s.candidates[static_cast<size_t>(s.chosen)].family;
+    const bool fewer = c.family->parameter_count() < current.parameter_count();
+    const bool as_few_but_simpler = c.family->parameter_count() == current.parameter_count() &&
+                                    c.family->simplicity_rank() < current.simplicity_rank();
+    if (fewer || as_few_but_simpler) s.chosen = static_cast<int>(i);
+  }
+
+  // Semicircular and segmental fit the same circle; the springing test decides.
+  if (s.candidates[static_cast<size_t>(s.chosen)].family == &semicircular_family()) {
+    const int seg = index_of(s, segmental_family());
+    if (seg >= 0 && s.candidates[static_cast<size_t>(seg)].fit) s.chosen = seg;
+  }
+
+  // Readings at the two ends, for the σ of a springing level taken from them.
+  std::vector<double> end_sigmas = {options.fallback_sigma_m, options.fallback_sigma_m};
+  {
+    const Reading* lo = nullptr;
+    const Reading* hi = nullptr;
+    for (const Reading& r : readings) {
+      if (r.excluded || r.check) continue;
+      if (!lo || r.x < lo->x) lo = &r;
+      if (!hi || r.x > hi->x) hi = &r;
+    }
+    if (lo && lo->sigma > 0) end_sigmas[0] = lo->sigma;
+    if (hi && hi->sigma > 0) end_sigmas[1] = hi->sigma;
+  }
+
+  const ShapeFit& chosen_fit = *s.candidates[static_cast<size_t>(s.chosen)].fit;
+  std::string why;
+  const int semi = index_of(s, semicircular_family());
+  if (semi >= 0 && s.candidates[static_cast<size_t>(semi)].fit &&
+      reduces_to_semicircle(chosen_fit, end_sigmas, why)) {
+    s.reason = "semicircular: the " + std::string(chosen_fit.family->name()) +
+               " fit is not distinguishable from a semicircle (" + why + ")";
+    s.chosen = semi;
+    return s;
+  }
+  s.reason = std::string(chosen_fit.family->name()) +
+             ": the simplest family within 2 of the lowest AIC";
+  if (!why.empty()) s.reason += " (" + why + ")";
+  return s;
+}
+
+}  // namespace soffit

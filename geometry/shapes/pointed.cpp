@@ -1,0 +1,69 @@
+// Pointed (two-centred): two arcs of radius ρ, each centred on the springing
+// line at distance ρ from its own springing, meeting at the crown.
+// Crown height √(ρL − L²/4); equilateral when ρ = L; semicircular when ρ = L/2.
+// Parameters: mid-span x, springing level, half-span h = L/2, radius ρ.
+#include <algorithm>
+#include <cmath>
+
+#include "geometry/shapes/arc_segment.hpp"
+#include "geometry/shapes/families.hpp"
+
+namespace soffit {
+namespace {
+
+class Pointed final : public ShapeFamily {
+ public:
+  std::string_view name() const override { return "pointed"; }
+  std::string_view description() const override {
+    return "two-centred arch, centres on the springing line";
+  }
+  int parameter_count() const override { return 4; }
+  int simplicity_rank() const override { return 4; }
+  bool springing_from_shape() const override { return true; }
+  bool has_analytic_gradient() const override { return false; }
+
+  std::optional<SolverVector> initial_guess(std::span<const Point2> points) const override {
+    if (points.size() < 4) return std::nullopt;
+    const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
+                                              [](Point2 a, Point2 b) { return a.x < b.x; });
+    double top = points[0].z;
+    for (const Point2& p : points) top = std::max(top, p.z);
+    const double h = (hi->x - lo->x) / 2.0, zs = (lo->z + hi->z) / 2.0, rise = top - zs;
+    if (!(h > 0.0) || !(rise > 0.0)) return std::nullopt;
+    SolverVector p(4);
+    p << (lo->x + hi->x) / 2.0, zs, h, (rise * rise + h * h) / (2.0 * h);
+    return p;
+  }
+
+  double signed_distance(const SolverVector& p, Point2 q, double*) const override {
+    const auto o = outline(p, 0.0);
+    if (!o) return std::nan("");
+    return outline_signed_distance(*o, q);
+  }
+
+  std::optional<Outline> outline(const SolverVector& p, double) const override {
+    const double xm = p[0], zs = p[1], h = p[2], rho = p[3];
+    if (!(h > 0.0) || !(rho > 0.5 * h)) return std::nullopt;
+    Outline o;
+    o.z_springing = zs;
+    o.add({OutlinePiece::Kind::circular, xm - h + rho, zs, rho, 0.0, xm - h, xm});
+    o.add({OutlinePiece::Kind::circular, xm + h - rho, zs, rho, 0.0, xm, xm + h});
+    return o;
+  }
+
+  NamedValues reported_parameters(const SolverVector& p, const Outline&) const override {
+    return {{"radius_m", p[3]},
+            {"centre_left_x_m", p[0] - p[2] + p[3]},
+            {"centre_right_x_m", p[0] + p[2] - p[3]},
+            {"centre_z_m", p[1]}};
+  }
+};
+
+}  // namespace
+
+const ShapeFamily& pointed_family() {
+  static const Pointed family;
+  return family;
+}
+
+}  // namespace soffit
