@@ -27,6 +27,8 @@ json candidates_json(const ShapeSelection& selection) {
       entry["reduced_chi2"] = c.fit->reduced_chi2;
       entry["aic"] = c.fit->aic;
       entry["bic"] = c.fit->bic;
+      entry["supported"] = c.supported;
+      if (!c.supported) entry["not_supported_because"] = c.error;
     } else {
       entry["rms_residual_mm"] = nullptr;
       entry["aic"] = nullptr;

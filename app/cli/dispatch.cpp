@@ -11,7 +11,7 @@ namespace {
 void print_usage() {
   std::fputs(
       "usage: soffit fit FILE [--shape NAME|auto] [--sigma-mm S] [--springing-z Z]\n"
-      "                       [--seed K] [--mc N] [--robust]\n"
+      "                       [--seed K] [--mc N] [--robust] [--summary]\n"
       "Soffit holds survey data, not an assessment: local codes and a qualified\n"
       "engineer decide what the geometry means.\n",
       stderr);

@@ -1,5 +1,7 @@
-// soffit fit FILE [--shape NAME|auto] [--sigma-mm S] [--springing-z Z] [--seed K] [--mc N] [--robust]
-// Reads one section, fits it headless and prints the JSON report on stdout.
+// soffit fit FILE [--shape NAME|auto] [--sigma-mm S] [--springing-z Z] [--seed K] [--mc N]
+//                 [--robust] [--summary]
+// Reads one section, fits it headless and prints the JSON report (or, with
+// --summary, a short text account) on stdout.
 #include <charconv>
 #include <cstdio>
 #include <iostream>
@@ -7,6 +9,7 @@
 #include <string>
 #include <string_view>
 
+#include "app/cli/fit_summary.hpp"
 #include "app/cli/option_parsing.hpp"
 #include "exports/fit_report_json.hpp"
 #include "geometry/analysis/profile_analysis.hpp"
@@ -30,6 +33,7 @@ int run_fit(int argc, char** argv) {
   std::string file;
   ProfileRequest request;
   SheetOptions sheet_options;
+  bool summary = false;
   try {
     OptionCursor args(argc, argv, "fit");
     while (args.more()) {
@@ -51,6 +55,8 @@ int run_fit(int argc, char** argv) {
         request.uncertainty.monte_carlo_draws = static_cast<int>(args.integer(arg, 0, 1000000));
       } else if (arg == "--robust") {
         request.fit.robust = true;
+      } else if (arg == "--summary") {
+        summary = true;
       } else if (!arg.empty() && arg[0] == '-') {
         throw UsageError("unknown option '" + std::string(arg) + "'");
       } else if (file.empty()) {
@@ -62,7 +68,7 @@ int run_fit(int argc, char** argv) {
     if (file.empty()) throw UsageError("no FILE given");
   } catch (const UsageError& e) {
     std::fprintf(stderr, "soffit fit: %s\nusage: soffit fit FILE [--shape %s] [--sigma-mm S]\n"
-                         "       [--springing-z Z] [--seed K] [--mc N] [--robust]\n",
+                         "       [--springing-z Z] [--seed K] [--mc N] [--robust] [--summary]\n",
                  e.what(), shape_names().c_str());
     return 2;
   }
@@ -79,7 +85,10 @@ int run_fit(int argc, char** argv) {
     std::fprintf(stderr, "soffit fit: %s: cannot fit: %s\n", file.c_str(), analysis.error.c_str());
     return 2;
   }
-  std::cout << fit_report_json(sheet, analysis, request).dump(2) << "\n";
+  if (summary)
+    print_fit_summary(std::cout, sheet, analysis);
+  else
+    std::cout << fit_report_json(sheet, analysis, request).dump(2) << "\n";
   return 0;
 }
 

@@ -51,6 +51,11 @@ ProfileAnalysis analyse_profile(const Readings& readings, const ProfileRequest& 
                            std::to_string(readings[i].source_line) + ") was set aside by the robust fit: " +
                            mm(fit.residuals[i]) + " mm from the curve; it is kept in the data");
   }
+  if (springing_gap_ratio(fit) > kMaxSpringingGapRatio) {
+    out.warnings.push_back("the readings end " + mm(fit.end_readings_z - fit.springing_z) +
+                           " mm above this shape's springing line: its span and rise are extrapolated "
+                           "below the surveyed profile; another family may describe it better");
+  }
   if (fit.springing_from_ends && !request.fit.springing_z) {
     out.warnings.push_back(
         "the springing level is taken as the mean level of the two end readings; give "

@@ -93,6 +93,11 @@ double distance_with_gradient(const ShapeFamily& family, const SolverVector& par
   return d;
 }
 
+double springing_gap_ratio(const ShapeFit& fit) {
+  if (!fit.family->springing_from_shape() || !(fit.data_rise > 0.0)) return 0.0;
+  return (fit.end_readings_z - fit.springing_z) / fit.data_rise;
+}
+
 double end_readings_level(const std::vector<Point2>& points) {
   const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
                                             [](Point2 a, Point2 b) { return a.x < b.x; });
@@ -188,6 +193,8 @@ FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const 
   fit.params = solved.params;
   fit.iterations = solved.iterations;
   fit.covariance = solved.jtj.ldlt().solve(SolverMatrix::Identity(p, p));
+  fit.end_readings_z = end_readings_level(points);
+  for (const Point2& q : points) fit.data_rise = std::max(fit.data_rise, q.z - fit.end_readings_z);
   if (family.springing_from_shape()) {
     fit.springing_z = 0.0;  // the outline takes it from the parameters
   } else if (options.springing_z) {

@@ -31,6 +31,8 @@ struct ShapeFit {
   SolverMatrix covariance;      // (JᵀWJ)⁻¹ at the solution, a-priori σ
   double springing_z = 0.0;     // level used for the outline
   bool springing_from_ends = false;
+  double end_readings_z = 0.0;  // mean level of the two end readings used
+  double data_rise = 0.0;       // highest reading used above end_readings_z
   Outline outline;
   int iterations = 0;
 
@@ -67,6 +69,14 @@ std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::v
 // families without an analytic gradient.
 double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
                               double* gradient);
+
+// How far the end readings lie above the springing line of a shape that fixes
+// its own (semicircular, elliptical, pointed, three-centred), as a fraction of
+// the rise the readings cover. Near 0 when the profile starts and ends at the
+// springings; large when the shape extrapolates far below the readings, as a
+// full circle does through a segmental arch's readings.
+double springing_gap_ratio(const ShapeFit& fit);
+constexpr double kMaxSpringingGapRatio = 0.1;
 
 // The springing level of families that do not fix it: mean z of the readings
 // with the smallest and largest x among `points`.

@@ -27,7 +27,8 @@ double linear_sd(const ShapeFit& fit, const SolverVector& g) {
 
 std::string fmt(double v) {
   std::ostringstream s;
-  s.precision(3);
+  s.setf(std::ios::fixed);
+  s.precision(1);
   s << v;
   return s.str();
 }
@@ -91,19 +92,25 @@ ShapeSelection select_shape(const Readings& readings, const FitOptions& options)
     FitOutcome outcome = fit_shape(*family, readings, options);
     c.fit = std::move(outcome.fit);
     c.error = std::move(outcome.error);
+    if (c.fit && springing_gap_ratio(*c.fit) > kMaxSpringingGapRatio) {
+      // Fits the readings, but only by extrapolating far below them: not supported.
+      c.error = "its springing line lies " + fmt((c.fit->end_readings_z - c.fit->springing_z) * 1000) +
+                " mm below the end readings";
+      c.supported = false;
+    }
     s.candidates.push_back(std::move(c));
   }
 
   double best_aic = INFINITY;
   for (const ShapeCandidate& c : s.candidates)
-    if (c.fit) best_aic = std::min(best_aic, c.fit->aic);
+    if (c.fit && c.supported) best_aic = std::min(best_aic, c.fit->aic);
   if (!std::isfinite(best_aic)) {
     s.reason = "no family could be fitted to these readings";
     return s;
   }
   for (size_t i = 0; i < s.candidates.size(); ++i) {
     const ShapeCandidate& c = s.candidates[i];
-    if (!c.fit || c.fit->aic > best_aic + kSupportedDeltaAic) continue;
+    if (!c.fit || !c.supported || c.fit->aic > best_aic + kSupportedDeltaAic) continue;
     if (s.chosen < 0) {
       s.chosen = static_cast<int>(i);
       continue;
@@ -139,6 +146,7 @@ ShapeSelection select_shape(const Readings& readings, const FitOptions& options)
   std::string why;
   const int semi = index_of(s, semicircular_family());
   if (semi >= 0 && s.candidates[static_cast<size_t>(semi)].fit &&
+      s.candidates[static_cast<size_t>(semi)].supported &&
       reduces_to_semicircle(chosen_fit, end_sigmas, why)) {
     s.reason = "semicircular: the " + std::string(chosen_fit.family->name()) +
                " fit is not distinguishable from a semicircle (" + why + ")";

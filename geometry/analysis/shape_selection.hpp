@@ -6,6 +6,8 @@
 //     Multimodel Inference, 2002, §2.6: ΔAIC ≤ 2 means substantial support).
 //  2. Among the supported families take the one with the fewest parameters, then
 //     the lower simplicity rank.
+//  0. A family that fixes its own springing line is not supported when that
+//     line lies far below the end readings (springing_gap_ratio).
 //  3. A circular arc whose centre lies on the end readings' level within twice its
 //     standard deviation is semicircular, not segmental; an ellipse whose
 //     semi-axes agree within twice the standard deviation of their difference
@@ -21,7 +23,8 @@ namespace soffit {
 struct ShapeCandidate {
   const ShapeFamily* family = nullptr;
   std::optional<ShapeFit> fit;
-  std::string error;  // why it did not fit
+  std::string error;  // why it did not fit, or why it is not supported
+  bool supported = true;  // false: fitted, but its springing lies far below the readings
 };
 
 struct ShapeSelection {

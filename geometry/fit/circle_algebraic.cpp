@@ -1,5 +1,6 @@
 #include "geometry/fit/circle_algebraic.hpp"
 
+#include <Eigen/Core>
 #include <cmath>
 
 #include "geometry/fit/point_spread.hpp"
@@ -14,32 +15,55 @@ struct CircleMoments {
   double xx = 0, yy = 0, xy = 0, xz = 0, yz = 0, zz = 0, z = 0;
 };
 
+// Two passes: the centroid, then every centred moment (unscaled; the scaling
+// by the RMS radius s is applied to the sums, xz/s³, zz/s⁴, …).
 std::optional<CircleMoments> centred_moments(std::span<const Point2> points) {
   const std::size_t n = points.size();
   if (n < 3) return std::nullopt;
-  const auto spread = point_spread(points);
+  const auto c = centroid(points);
+  if (!c) return std::nullopt;
+  // Four points per step in Eigen::Array4d lanes (SIMD on any target): this
+  // pass is part of every geometric fit of a 10⁶-point scan.
+  using Lane = Eigen::Array4d;
+  Lane xx = Lane::Zero(), yy = Lane::Zero(), xy = Lane::Zero(), xz = Lane::Zero(),
+       yz = Lane::Zero(), zz = Lane::Zero();
+  auto add = [&](const Lane& px, const Lane& pz, const Lane& keep) {
+    const Lane x = (px - c->x) * keep, y = (pz - c->z) * keep, z = x * x + y * y;
+    xx += x * x;
+    yy += y * y;
+    xy += x * y;
+    xz += x * z;
+    yz += y * z;
+    zz += z * z;
+  };
+  std::size_t i = 0;
+  for (; i + 4 <= n; i += 4) {
+    const Point2* p = &points[i];
+    add(Lane(p[0].x, p[1].x, p[2].x, p[3].x), Lane(p[0].z, p[1].z, p[2].z, p[3].z), Lane::Ones());
+  }
+  for (; i < n; ++i)
+    add(Lane::Constant(points[i].x), Lane::Constant(points[i].z), Lane(1, 0, 0, 0));
+
+  const double dn = double(n);
+  const auto spread = point_spread(points, *c, xx.sum() / dn, yy.sum() / dn, xy.sum() / dn);
   if (!spread || is_collinear(*spread, kCircleCollinearRelative)) return std::nullopt;
   CircleMoments m;
-  m.mx = spread->mx;
-  m.my = spread->mz;
+  m.mx = c->x;
+  m.my = c->z;
   m.scale = spread->rms;
-  const double inv = 1.0 / m.scale;
-  for (const Point2& p : points) {
-    const double x = (p.x - m.mx) * inv, y = (p.z - m.my) * inv, z = x * x + y * y;
-    m.xx += x * x;
-    m.yy += y * y;
-    m.xy += x * y;
-    m.xz += x * z;
-    m.yz += y * z;
-    m.zz += z * z;
-  }
-  for (double* v : {&m.xx, &m.yy, &m.xy, &m.xz, &m.yz, &m.zz}) *v /= double(n);
+  const double s2 = m.scale * m.scale;
+  m.xx = xx.sum() / dn / s2;
+  m.yy = yy.sum() / dn / s2;
+  m.xy = xy.sum() / dn / s2;
+  m.xz = xz.sum() / dn / (s2 * m.scale);
+  m.yz = yz.sum() / dn / (s2 * m.scale);
+  m.zz = zz.sum() / dn / (s2 * s2);
   m.z = m.xx + m.yy;
   return m;
 }
 
 // The circle of the generalised eigenvector for eigenvalue eta (Chernov 2010,
-// §5–7): rows 2–3 of (M − ηN)v = 0 give the centre; row 4 gives D, hence R.
+// the Pratt and Taubin chapters): rows 2–3 of (M − ηN)v = 0 give the centre; row 4 gives D, hence R.
 // extra_r2 is −D/A − Mz: 0 for Kåsa and Taubin, 2η for Pratt.
 std::optional<Circle> circle_at(const CircleMoments& m, double eta, double extra_r2) {
   const double det = eta * eta - eta * m.z + (m.xx * m.yy - m.xy * m.xy);
@@ -55,7 +79,7 @@ std::optional<Circle> circle_at(const CircleMoments& m, double eta, double extra
 //   g(η) = Mxz²(Myy − η) + Myz²(Mxx − η) − 2 Mxz Myz Mxy,
 // and f the first row of (M − ηN)v after eliminating B, C, D:
 //   Taubin f = Mzz − Mz² − 4 Mz η,   Pratt f = Mzz − (Mz + 2η)².
-// Newton from η = 0 descends monotonically to that root (Chernov 2010, §5.5);
+// Newton from η = 0 descends monotonically to that root (Chernov 2010; from memory);
 // the loop stops when |P| stops decreasing, i.e. at rounding level.
 template <class F, class DF>
 double smallest_root(const CircleMoments& m, F f, DF df) {

@@ -18,7 +18,7 @@
 // The formulation (moments of the centred data, smallest non-negative root of
 // the characteristic polynomial found by Newton's method from 0) follows
 // N. Chernov, "Circular and Linear Regression: Fitting Circles and Lines by
-// Least Squares", CRC Press 2010, ch. 5–7.
+// Least Squares", CRC Press 2010 (its algebraic-fit chapters).
 //
 // Conditioning: the points are centred on their centroid and scaled by their
 // RMS distance from it before any moment is formed, so survey coordinates

@@ -8,8 +8,8 @@
 // sums the 3×3 normal equations (JᵀWJ, JᵀWr, Σ w r²) in the residual loop: no
 // Jacobian is stored and nothing is allocated per iteration. The method and its
 // Jacobian are those of W. Gander, G. H. Golub, R. Strebel, "Least-squares
-// fitting of circles and ellipses", BIT 34 (1994) 558–578, §5, and N. Chernov,
-// "Circular and Linear Regression", CRC Press 2010, ch. 4.
+// fitting of circles and ellipses", BIT 34 (1994) 558–578, and N. Chernov,
+// "Circular and Linear Regression", CRC Press 2010.
 //
 // Covariance: `jtj` is JᵀWJ at the solution in the parameter order
 // (cx, cz, r). With weights wᵢ = 1/σᵢ² its inverse is the first-order

@@ -15,7 +15,7 @@ std::optional<DirectEllipseFit> fit_ellipse_direct(std::span<const Point2> point
   if (!spread || is_collinear(*spread, kEllipseCollinearRelative)) return std::nullopt;
   const double mx = spread->mx, mz = spread->mz, scale = spread->rms;
 
-  // Scatter blocks of Halíř & Flusser §3: D1 = [x², xz, z²], D2 = [x, z, 1].
+  // Scatter blocks of Halíř & Flusser: D1 = [x², xz, z²], D2 = [x, z, 1].
   Eigen::Matrix3d s1 = Eigen::Matrix3d::Zero(), s2 = Eigen::Matrix3d::Zero(),
                   s3 = Eigen::Matrix3d::Zero();
   const double inv = 1.0 / scale;
@@ -41,7 +41,7 @@ std::optional<DirectEllipseFit> fit_ellipse_direct(std::span<const Point2> point
   int best = -1;
   double best_value = 0;
   for (int k = 0; k < 3; ++k) {
-    // The generalised eigenvalues are real (FPF 1999, §4); a complex pair is
+    // The generalised eigenvalues are real (FPF 1999: S is positive definite); a complex pair is
     // not a candidate.
     if (std::abs(eig.eigenvalues()[k].imag()) > 1e-9 * spectrum) continue;
     const Eigen::Vector3d v = eig.eigenvectors().col(k).real();

@@ -15,7 +15,7 @@ struct Quadrant {
 // Root of F in σ = s + 1 > 0, with k = r₀ − 1 ≥ 0 formed without cancellation:
 //   F(σ) = (r₀z₀/(σ + k))² + (z₁/σ)² − 1,  F(1) = g = z₀² + z₁² − 1,
 // bracketed by [z₁, 1] inside and [max(z₁, 1), |(r₀z₀, z₁)|] outside (Eberly
-// 2013, §2.3, shifted by one so that a tiny z₁ does not round the left end onto
+// 2013, shifted by one so that a tiny z₁ does not round the left end onto
 // the pole at s = −1). z₀, z₁ > 0.
 double root_of_secular(double r0, double k, double z0, double z1, double g) {
   const double n0 = r0 * z0;
@@ -79,7 +79,7 @@ double root_of_secular(double r0, double k, double z0, double z1, double g) {
   return sg;
 }
 
-// Eberly 2013 §2.3–2.4 for e0 ≥ e1 > 0 and y0, y1 ≥ 0.
+// Eberly 2013 for e0 ≥ e1 > 0 and y0, y1 ≥ 0.
 Quadrant foot_first_quadrant(double e0, double e1, double y0, double y1) {
   if (y1 > 0) {
     if (y0 > 0) {

@@ -7,7 +7,7 @@
 // −n·∂q/∂θ with n the outward unit normal and q the foot point at fixed
 // parameter t (the foot's own movement along the curve is orthogonal to n):
 // W. Gander, G. H. Golub, R. Strebel, "Least-squares fitting of circles and
-// ellipses", BIT 34 (1994) 558–578, §6 (geometric fit in parametric form);
+// ellipses", BIT 34 (1994) 558–578 (geometric fit in parametric form);
 // S. J. Ahn, W. Rauh, H.-J. Warnecke, "Least-squares orthogonal distances
 // fitting of circle, sphere, ellipse, hyperbola, and parabola", Pattern
 // Recognition 34 (2001) 2283–2303. Started from the direct fit

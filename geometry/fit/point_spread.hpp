@@ -21,6 +21,15 @@ struct PointSpread {
 // so its accuracy is that of the coordinates, not of a cancelling determinant.
 std::optional<PointSpread> point_spread(std::span<const Point2> points);
 
+// The same from moments a caller has already summed in its own pass: the
+// centroid and the centred second moments (means) xx, zz, xz. `points` is read
+// again only for nearly collinear data.
+std::optional<PointSpread> point_spread(std::span<const Point2> points, Point2 centroid,
+                                        double xx, double zz, double xz);
+
+// Mean of the points; std::nullopt when empty or not finite.
+std::optional<Point2> centroid(std::span<const Point2> points);
+
 // Whether the points lie on a line to within `relative` of their extent:
 // across ≤ relative · along.
 bool is_collinear(const PointSpread& spread, double relative);

@@ -114,7 +114,7 @@ TEST_CASE("ellipse_direct: no ellipse, no answer") {
   const std::vector<Point2> collinear{{0, 0}, {1, 1}, {2, 2}, {3, 3}, {4, 4}, {5, 5}};
   CHECK_FALSE(fit_ellipse_direct(collinear).has_value());
   // Exact points of the hyperbola x² − z² = 1: the only zero-error conic is a
-  // hyperbola; FPF's constraint still forces an ellipse (FPF 1999, §4), so the
+  // hyperbola; FPF's constraint still forces an ellipse (FPF 1999), so the
   // fit must return an ellipse, not the hyperbola. Its quadratic part must be definite.
   std::vector<Point2> hyperbola;
   for (int k = -4; k <= 4; ++k) {

@@ -88,7 +88,7 @@ TEST_CASE("ellipse_distance: degenerate positions") {
   CHECK(std::abs(f.signed_distance - 2) < 1e-15);
   CHECK(std::abs(f.foot.x - 5) < 1e-15);
   // On the major axis inside the evolute's cusp (x < (a² − b²)/a = 3.2): the
-  // foot leaves the axis at x = a²·x₀/(a² − b²) (Eberly 2013, §2.3).
+  // foot leaves the axis at x = a²·x₀/(a² − b²) (Eberly 2013; also from the Lagrange condition).
   f = closest_point_on_ellipse(a, b, {-2, 0});
   CHECK(std::abs(f.foot.x - -25.0 * 2 / 16) < 1e-14);
   CHECK(std::abs(f.signed_distance + brute_force_distance(a, b, {-2, 0})) < 1e-12);
