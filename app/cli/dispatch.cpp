@@ -6,6 +6,9 @@
 namespace soffit::cli {
 
 int run_fit(int argc, char** argv);  // fit_command.cpp
+int run_import(int argc, char** argv);  // project_commands.cpp
+int run_list(int argc, char** argv);    // project_commands.cpp
+int run_show(int argc, char** argv);    // project_commands.cpp
 
 namespace {
 void print_usage() {
@@ -25,6 +28,9 @@ int run(int argc, char** argv) {
   }
   std::string_view verb = argv[1];
   if (verb == "fit") return run_fit(argc - 1, argv + 1);
+  if (verb == "import") return run_import(argc - 1, argv + 1);
+  if (verb == "list") return run_list(argc - 1, argv + 1);
+  if (verb == "show") return run_show(argc - 1, argv + 1);
   if (verb == "--help" || verb == "-h" || verb == "help") {
     print_usage();
     return 0;

@@ -175,9 +175,10 @@ SolverResult levenberg_marquardt(const NormalEquationsFn& evaluate, const Solver
   result.iterations = iteration;
   if (!converged) {
     result.status = SolverStatus::max_iterations;
-  } else if (scaled_rcond(current.jtj) < options.singular_rcond ||
+  } else if (options.check_conditioning &&
+             (scaled_rcond(current.jtj) < options.singular_rcond ||
              has_undetermined_parameter(params, current.jtj, current.cost,
-                                        current.residual_count)) {
+                                        current.residual_count))) {
     result.status = SolverStatus::singular;
   } else {
     result.status = SolverStatus::converged;

@@ -48,6 +48,9 @@ struct SolverOptions {
   double gradient_tolerance = 1e-14;   // on the scaled gradient, relative to cost
   double initial_damping = 1e-3;       // λ relative to diag(JᵀWJ)
   double singular_rcond = 1e-13;       // reciprocal condition of the scaled JᵀWJ
+  // Off for refits that start at a solution already checked (Monte Carlo draws):
+  // the conditioning tests cost as much as an iteration.
+  bool check_conditioning = true;
 };
 
 struct SolverResult {

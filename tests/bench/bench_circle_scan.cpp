@@ -6,12 +6,12 @@
 
 #include <cmath>
 #include <cstdio>
-#include <map>
 #include <random>
 #include <string>
 #include <vector>
 
 #include "geometry/fit/circle_geometric.hpp"
+#include "tests/bench/keeping_reporter.hpp"
 
 namespace {
 
@@ -61,19 +61,6 @@ void geometric_fit(benchmark::State& state) {
 BENCHMARK(plain_pass)->Unit(benchmark::kMillisecond);
 BENCHMARK(geometric_fit)->Unit(benchmark::kMillisecond);
 
-// Prints as usual and keeps each benchmark's time per iteration (ms).
-class KeepingReporter : public benchmark::ConsoleReporter {
- public:
-  std::map<std::string, double> ms;
-  void ReportRuns(const std::vector<Run>& runs) override {
-    for (const Run& r : runs)
-      if (!r.error_occurred)
-        ms[r.benchmark_name()] =
-            r.GetAdjustedRealTime() / benchmark::GetTimeUnitMultiplier(r.time_unit) * 1e3;
-    ConsoleReporter::ReportRuns(runs);
-  }
-};
-
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -84,7 +71,7 @@ int main(int argc, char** argv) {
     std::printf("fit: centre (%.6f, %.6f) R %.6f, RSS %.6g, %d solver iterations, %s\n",
                 fit->circle.cx, fit->circle.cz, fit->circle.r, fit->rss, fit->iterations,
                 fit->message.c_str());
-  KeepingReporter reporter;
+  soffit::bench::KeepingReporter reporter;
   benchmark::RunSpecifiedBenchmarks(&reporter);
   benchmark::Shutdown();
   if (!reporter.ms.count("plain_pass") || !reporter.ms.count("geometric_fit")) {
