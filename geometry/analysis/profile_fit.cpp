@@ -12,60 +12,11 @@ namespace {
 constexpr double kTukeyC = 4.685;  // 95% efficiency at the normal (Tukey biweight)
 constexpr int kMaxRobustRounds = 30;
 
-// Σ w J J, Σ w J r and Σ w r² over the points, with the parameter count a
-// compile-time constant when it can be (N > 0) so the compiler unrolls the
-// accumulation: in Monte Carlo runs this loop is nearly all the work.
-template <int N>
-bool sum_normal_equations(const ShapeFamily& family, const std::vector<Point2>& points,
-                          const std::vector<double>& weights, const SolverVector& params,
-                          bool want_derivatives, NormalEquations& ne) {
-  const int n = N > 0 ? N : static_cast<int>(params.size());
-  double gradient[kMaxSolverParameters];
-  double jtj[kMaxSolverParameters][kMaxSolverParameters] = {};
-  double jtr[kMaxSolverParameters] = {};
-  double cost = 0.0;
-  int count = 0;
-  const bool analytic = family.has_analytic_gradient();
-  for (size_t i = 0; i < points.size(); ++i) {
-    const double w = weights[i];
-    if (w <= 0.0) continue;
-    double* g = want_derivatives ? gradient : nullptr;
-    const double d = analytic ? family.signed_distance(params, points[i], g)
-                              : distance_with_gradient(family, params, points[i], g);
-    if (!std::isfinite(d)) return false;
-    cost += w * d * d;
-    ++count;
-    if (want_derivatives) {
-      for (int a = 0; a < n; ++a) {
-        const double wg = w * gradient[a];
-        jtr[a] += wg * d;
-        for (int b = 0; b <= a; ++b) jtj[a][b] += wg * gradient[b];
-      }
-    }
-  }
-  ne.cost = cost;
-  ne.residual_count = count;
-  if (want_derivatives) {
-    ne.jtj.resize(n, n);
-    ne.jtr.resize(n);
-    for (int a = 0; a < n; ++a) {
-      ne.jtr[a] = jtr[a];
-      for (int b = 0; b <= a; ++b) ne.jtj(a, b) = ne.jtj(b, a) = jtj[a][b];
-    }
-  }
-  return true;
-}
-
 NormalEquationsFn make_problem(const ShapeFamily& family, const std::vector<Point2>& points,
                                const std::vector<double>& weights) {
   return [&family, &points, &weights](const SolverVector& params, bool want_derivatives,
                                       NormalEquations& ne) {
-    switch (params.size()) {
-      case 3: return sum_normal_equations<3>(family, points, weights, params, want_derivatives, ne);
-      case 4: return sum_normal_equations<4>(family, points, weights, params, want_derivatives, ne);
-      case 5: return sum_normal_equations<5>(family, points, weights, params, want_derivatives, ne);
-      default: return sum_normal_equations<0>(family, points, weights, params, want_derivatives, ne);
-    }
+    return family.normal_equations(params, points, weights, want_derivatives, ne);
   };
 }
 
@@ -96,28 +47,6 @@ double median(std::vector<double> v) {
 
 }  // namespace
 
-double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
-                              double* gradient) {
-  if (!gradient || family.has_analytic_gradient()) return family.signed_distance(params, p, gradient);
-  const double d = family.signed_distance(params, p, nullptr);
-  SolverVector q = params;
-  for (Eigen::Index j = 0; j < params.size(); ++j) {
-    const double h = 1e-7 * std::max(1.0, std::abs(params[j]));
-    q[j] = params[j] + h;
-    const double up = family.signed_distance(q, p, nullptr);
-    q[j] = params[j] - h;
-    const double down = family.signed_distance(q, p, nullptr);
-    q[j] = params[j];
-    if (std::isfinite(up) && std::isfinite(down))
-      gradient[j] = (up - down) / (2 * h);
-    else if (std::isfinite(up))
-      gradient[j] = (up - d) / h;
-    else
-      gradient[j] = (d - down) / h;
-  }
-  return d;
-}
-
 double springing_gap_ratio(const ShapeFit& fit) {
   if (!fit.family->springing_from_shape() || !(fit.data_rise > 0.0)) return 0.0;
   return (fit.end_readings_z - fit.springing_z) / fit.data_rise;
@@ -136,7 +65,7 @@ std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::v
   options.max_iterations = 60;
   // A draw's answer only needs to be far finer than its own scatter (σ ≈ mm):
   // 1e-9 of the parameters' size is well below a micrometre on any arch.
-  options.relative_step_tolerance = 1e-6;
+  options.relative_step_tolerance = 1e-9;
   options.relative_cost_tolerance = 1e-12;
   options.initial_damping = 1e-6;  // the start is a solution for nearby data: begin near Gauss–Newton
   options.check_conditioning = false;

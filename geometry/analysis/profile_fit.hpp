@@ -65,11 +65,6 @@ std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::v
                                          const std::vector<double>& weights,
                                          const SolverVector& start);
 
-// Signed distance and its gradient; numeric (central differences) for
-// families without an analytic gradient.
-double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
-                              double* gradient);
-
 // How far the end readings lie above the springing line of a shape that fixes
 // its own (semicircular, elliptical, pointed, three-centred), as a fraction of
 // the rise the readings cover. Near 0 when the profile starts and ends at the

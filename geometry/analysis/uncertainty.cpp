@@ -28,11 +28,17 @@ std::optional<Eigen::VectorXd> flatten(const ShapeFamily& family, const SolverVe
   return v;
 }
 
-double percentile(const std::vector<double>& sorted, double q) {
-  const double pos = q * static_cast<double>(sorted.size() - 1);
+// q-quantile with linear interpolation between order statistics (the sample
+// quantile JCGM 101 §7.7 builds its coverage interval from). Reorders `v`.
+double percentile(std::vector<double>& v, double q) {
+  const double pos = q * static_cast<double>(v.size() - 1);
   const size_t i = static_cast<size_t>(pos);
   const double f = pos - static_cast<double>(i);
-  return i + 1 < sorted.size() ? sorted[i] * (1 - f) + sorted[i + 1] * f : sorted[i];
+  std::nth_element(v.begin(), v.begin() + static_cast<long>(i), v.end());
+  const double lower = v[i];
+  if (f == 0.0 || i + 1 >= v.size()) return lower;
+  const double upper = *std::min_element(v.begin() + static_cast<long>(i) + 1, v.end());
+  return lower * (1 - f) + upper * f;
 }
 
 void split(const std::vector<Estimate>& flat, const NamedValues& names, size_t geometry_count,
@@ -184,7 +190,6 @@ Uncertainty propagate_uncertainty(const ShapeFit& fit, const Readings& readings,
     mean /= static_cast<double>(c.size());
     double ss = 0.0;
     for (double v : c) ss += (v - mean) * (v - mean);
-    std::sort(c.begin(), c.end());
     mc[static_cast<size_t>(i)] = {nominal[i], std::sqrt(ss / static_cast<double>(c.size() - 1)),
                                   percentile(c, 0.025), percentile(c, 0.975)};
   }

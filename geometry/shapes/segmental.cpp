@@ -7,6 +7,7 @@
 #include "geometry/fit/circle_algebraic.hpp"
 #include "geometry/shapes/circle_distance.hpp"
 #include "geometry/shapes/families.hpp"
+#include "geometry/shapes/normal_equations_sum.hpp"
 
 namespace soffit {
 namespace {
@@ -32,6 +33,17 @@ class Segmental final : public ShapeFamily {
   double signed_distance(const SolverVector& p, Point2 q, double* gradient) const override {
     if (!(p[2] > 0.0)) return std::nan("");
     return circle_signed_distance(p[0], p[1], p[2], q, gradient);
+  }
+
+  bool normal_equations(const SolverVector& p, std::span<const Point2> points,
+                        std::span<const double> weights, bool want_derivatives,
+                        NormalEquations& out) const override {
+    if (!(p[2] > 0.0)) return false;
+    const double cx = p[0], cz = p[1], r = p[2];
+    const auto distance = [=](Point2 q, double* gradient) {
+      return circle_signed_distance(cx, cz, r, q, gradient);
+    };
+    return sum_normal_equations<3>(distance, 3, points, weights, want_derivatives, out);
   }
 
   std::optional<Outline> outline(const SolverVector& p, double springing_z) const override {

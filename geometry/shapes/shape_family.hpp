@@ -44,6 +44,13 @@ class ShapeFamily {
   virtual double signed_distance(const SolverVector& params, Point2 p, double* gradient) const = 0;
   virtual bool has_analytic_gradient() const { return true; }
 
+  // Normal equations of the weighted orthogonal-distance problem at `params`
+  // (see NormalEquationsFn). The default calls signed_distance per point; a
+  // family with a cheap closed form overrides it to inline the loop.
+  virtual bool normal_equations(const SolverVector& params, std::span<const Point2> points,
+                                std::span<const double> weights, bool want_derivatives,
+                                NormalEquations& out) const;
+
   // The fitted intrados between its springings. `springing_z` is used only when
   // !springing_from_shape(). Empty when no arch exists at that level.
   virtual std::optional<Outline> outline(const SolverVector& params, double springing_z) const = 0;
@@ -53,6 +60,11 @@ class ShapeFamily {
   virtual NamedValues reported_parameters(const SolverVector& params,
                                           const Outline& outline) const = 0;
 };
+
+// Signed distance and its gradient; numeric (central differences) for
+// families without an analytic gradient.
+double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
+                              double* gradient);
 
 // Every family, simplest first.
 std::span<const ShapeFamily* const> shape_families();
