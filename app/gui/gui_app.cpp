@@ -1,0 +1,140 @@
+// The field app's window and frame loop. Draws only when something changed
+// (battery), except while a fit is running or a screenshot is due.
+#include <imgui.h>
+
+#include <backends/imgui_impl_glfw.h>
+#include <backends/imgui_impl_opengl3.h>
+#define GLFW_INCLUDE_NONE
+#include <GL/gl.h>
+#include <GLFW/glfw3.h>
+
+#include <algorithm>
+#include <clocale>
+#include <cstdio>
+#include <string>
+
+#include "app/gui/gui_options.hpp"
+#include "app/gui/screenshot.hpp"
+#include "app/gui/section_workspace.hpp"
+#include "app/gui/ui_theme.hpp"
+
+namespace soffit::gui {
+
+namespace {
+
+const std::string kAssets = SOFFIT_ASSETS_DIR;
+
+struct AppState {
+  Theme theme = Theme::sunlight;
+  float scale = 1.0f;
+  bool restyle = true;
+  SectionWorkspace sections;
+};
+
+void draw_top_bar(AppState& s) {
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextUnformatted("Soffit");
+  ImGui::SameLine();
+  if (ImGui::Button(s.theme == Theme::sunlight ? "Shade theme" : "Sunlight theme")) {
+    s.theme = s.theme == Theme::sunlight ? Theme::shade : Theme::sunlight;
+    s.restyle = true;
+  }
+  ImGui::SameLine();
+  if (ImGui::Button("Text -") && s.scale > 0.76f) s.scale = std::max(0.75f, s.scale - 0.25f), s.restyle = true;
+  ImGui::SameLine();
+  if (ImGui::Button("Text +") && s.scale < 2.49f) s.scale = std::min(2.5f, s.scale + 0.25f), s.restyle = true;
+  ImGui::SameLine();
+  ImGui::Text("scale %.2f", s.scale);
+}
+
+}  // namespace
+
+int run_gui(const GuiOptions& options) {
+  std::setlocale(LC_NUMERIC, "C");  // numbers read and written the same in every locale
+  if (!glfwInit()) {
+    std::fputs("soffit: cannot open a window (no display?). The headless verbs still work: soffit fit …\n",
+               stderr);
+    return 1;
+  }
+  glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 3);
+  glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 0);
+  GLFWwindow* window = glfwCreateWindow(1280, 800, "Soffit", nullptr, nullptr);
+  if (!window) {
+    std::fputs("soffit: cannot create an OpenGL 3.0 window\n", stderr);
+    glfwTerminate();
+    return 1;
+  }
+  glfwMakeContextCurrent(window);
+  glfwSwapInterval(1);
+
+  IMGUI_CHECKVERSION();
+  ImGui::CreateContext();
+  ImGui::GetIO().IniFilename = nullptr;  // layout is the app's, not a file's
+  ImGui_ImplGlfw_InitForOpenGL(window, true);
+  ImGui_ImplOpenGL3_Init("#version 130");
+
+  AppState state;
+  if (options.ui_scale > 0) {
+    state.scale = options.ui_scale;
+  } else {
+    float sx = 1, sy = 1;
+    glfwGetWindowContentScale(window, &sx, &sy);
+    state.scale = std::clamp(std::max(sx, sy), 0.75f, 2.5f);
+  }
+  state.sections.load_folder(kAssets + "/sheets");
+
+  const bool capturing = !options.screenshot_path.empty();
+  int frame = 0, exit_code = 0;
+  while (!glfwWindowShouldClose(window)) {
+    if (capturing || state.sections.busy())
+      glfwPollEvents();
+    else
+      glfwWaitEventsTimeout(0.5);
+    if (state.restyle) {
+      apply_theme(state.theme, state.scale, kAssets + "/fonts/DejaVuSans.ttf");
+      state.restyle = false;
+    }
+    state.sections.poll();
+
+    ImGui_ImplOpenGL3_NewFrame();
+    ImGui_ImplGlfw_NewFrame();
+    ImGui::NewFrame();
+    const ImGuiViewport* vp = ImGui::GetMainViewport();
+    ImGui::SetNextWindowPos(vp->Pos);
+    ImGui::SetNextWindowSize(vp->Size);
+    ImGui::Begin("##main", nullptr,
+                 ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoSavedSettings);
+    draw_top_bar(state);
+    state.sections.draw();
+    ImGui::End();
+    ImGui::Render();
+
+    int w = 0, h = 0;
+    glfwGetFramebufferSize(window, &w, &h);
+    glViewport(0, 0, w, h);
+    const ImVec4 bg = ImGui::GetStyle().Colors[ImGuiCol_WindowBg];
+    glClearColor(bg.x, bg.y, bg.z, 1);
+    glClear(GL_COLOR_BUFFER_BIT);
+    ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
+
+    ++frame;
+    // Capture once the fit has arrived and a few frames have settled the layout.
+    if (capturing && ((frame >= options.screenshot_frames && !state.sections.busy()) || frame > 600)) {
+      if (!write_back_buffer_png(options.screenshot_path, w, h)) {
+        std::fprintf(stderr, "soffit: cannot write %s\n", options.screenshot_path.c_str());
+        exit_code = 1;
+      }
+      break;
+    }
+    glfwSwapBuffers(window);
+  }
+
+  ImGui_ImplOpenGL3_Shutdown();
+  ImGui_ImplGlfw_Shutdown();
+  ImGui::DestroyContext();
+  glfwDestroyWindow(window);
+  glfwTerminate();
+  return exit_code;
+}
+
+}  // namespace soffit::gui

@@ -1,0 +1,83 @@
+#include "app/gui/profile_plot.hpp"
+
+#include <imgui.h>
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "app/gui/ui_theme.hpp"
+#include "geometry/shapes/outline.hpp"
+
+namespace soffit::gui {
+
+namespace {
+constexpr float kResidualExaggeration = 50.0f;  // 1 mm drawn as 50 mm
+}
+
+void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis, float height) {
+  const Palette& c = palette();
+  ImDrawList* draw = ImGui::GetWindowDrawList();
+  const ImVec2 origin = ImGui::GetCursorScreenPos();
+  const float width = ImGui::GetContentRegionAvail().x;
+  const float pad = ImGui::GetFontSize() * 1.5f;
+  draw->AddRectFilled(origin, ImVec2(origin.x + width, origin.y + height), c.paper);
+  draw->AddRect(origin, ImVec2(origin.x + width, origin.y + height), c.faint_ink);
+
+  const ShapeFit& fit = *analysis.fit;
+  const std::vector<Point2> curve = sample_outline(fit.outline, 96);
+  double x0 = fit.outline.x_left(), x1 = fit.outline.x_right();
+  double z0 = fit.outline.z_springing, z1 = z0;
+  for (const Point2& p : curve) z1 = std::max(z1, p.z);
+  for (const Reading& r : readings) {
+    x0 = std::min(x0, r.x), x1 = std::max(x1, r.x);
+    z0 = std::min(z0, r.z), z1 = std::max(z1, r.z);
+  }
+  // One scale for both axes: a profile must not look flatter or taller than it is.
+  const double scale = std::min((width - 2 * pad) / std::max(x1 - x0, 1e-3),
+                                (height - 2 * pad) / std::max(z1 - z0, 1e-3));
+  const float left = origin.x + pad + static_cast<float>(((width - 2 * pad) - (x1 - x0) * scale) / 2);
+  const float bottom = origin.y + height - pad;
+  auto at = [&](double x, double z) {
+    return ImVec2(left + static_cast<float>((x - x0) * scale), bottom - static_cast<float>((z - z0) * scale));
+  };
+
+  // Half-metre grid.
+  for (double gx = std::ceil(x0 * 2) / 2; gx <= x1; gx += 0.5)
+    draw->AddLine(at(gx, z0), at(gx, z1), c.grid);
+  for (double gz = std::ceil(z0 * 2) / 2; gz <= z1; gz += 0.5)
+    draw->AddLine(at(x0, gz), at(x1, gz), c.grid);
+  draw->AddLine(at(x0, fit.outline.z_springing), at(x1, fit.outline.z_springing), c.faint_ink, 1.5f);
+
+  for (size_t i = 1; i < curve.size(); ++i)
+    draw->AddLine(at(curve[i - 1].x, curve[i - 1].z), at(curve[i].x, curve[i].z), c.fitted_curve, 3.0f);
+
+  const float dot = ImGui::GetFontSize() * 0.28f;
+  for (size_t i = 0; i < readings.size(); ++i) {
+    const Reading& r = readings[i];
+    const ImVec2 p = at(r.x, r.z);
+    if (!fit.used[i]) {
+      draw->AddCircle(p, dot, c.excluded, 0, 2.0f);  // hollow: not used in the fit
+      continue;
+    }
+    // Residual bar along the curve's normal (the gradient of the signed
+    // distance with respect to the point), pointing back towards the curve.
+    const double res = fit.residuals[i];
+    const double len = res * kResidualExaggeration * scale;
+    const double h = 1e-6;
+    const ShapeFamily& family = *fit.family;
+    const double nx = (family.signed_distance(fit.params, {r.x + h, r.z}, nullptr) -
+                       family.signed_distance(fit.params, {r.x - h, r.z}, nullptr)) / (2 * h);
+    const double nz = (family.signed_distance(fit.params, {r.x, r.z + h}, nullptr) -
+                       family.signed_distance(fit.params, {r.x, r.z - h}, nullptr)) / (2 * h);
+    const ImVec2 tip(p.x - static_cast<float>(nx * len), p.y + static_cast<float>(nz * len));
+    draw->AddLine(p, tip, res < 0 ? c.residual_below : c.residual_above, 3.0f);
+    draw->AddCircleFilled(p, dot, c.reading);
+  }
+  char label[96];
+  std::snprintf(label, sizeof label, "grid 0.5 m; residual bars drawn x%.0f", kResidualExaggeration);
+  draw->AddText(ImVec2(origin.x + pad * 0.5f, origin.y + pad * 0.3f), c.faint_ink, label);
+  ImGui::Dummy(ImVec2(width, height));
+}
+
+}  // namespace soffit::gui

@@ -1,0 +1,40 @@
+#pragma once
+// The section survey view: pick a sheet, see its readings, the fitted intrados
+// and the residuals. Fits run on a worker thread; a frame never waits for one.
+#include <future>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "geometry/analysis/profile_analysis.hpp"
+#include "geometry/sheet/survey_sheet.hpp"
+
+namespace soffit::gui {
+
+class SectionWorkspace {
+ public:
+  // Loads every sheet in `folder` (unreadable ones are listed with their error).
+  void load_folder(const std::string& folder);
+  void select(size_t index);
+  // Collects a finished fit, if any. Call once per frame, on the UI thread.
+  void poll();
+  bool busy() const { return pending_.valid(); }
+  void draw();
+
+ private:
+  struct Entry {
+    std::string path, label, error;
+    std::optional<SurveySheet> sheet;
+  };
+  void start_fit();
+  void draw_sheet_list();
+  void draw_results();
+
+  std::vector<Entry> entries_;
+  size_t selected_ = 0;
+  std::string shape_ = "auto";
+  std::future<ProfileAnalysis> pending_;
+  std::optional<ProfileAnalysis> analysis_;
+};
+
+}  // namespace soffit::gui
