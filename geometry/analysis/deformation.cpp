@@ -10,21 +10,23 @@ namespace soffit {
 
 namespace {
 
-DeformationZone make_zone(const ShapeFit& fit, const Readings& readings, const std::vector<size_t>& run,
-                          double sigma_scale) {
+constexpr double kRunSignificance = 3.0;
+constexpr double kSingleReadingSigmas = 3.0;
+
+DeformationZone make_zone(const ShapeFit& fit, const Readings& readings, const std::vector<size_t>& run) {
   DeformationZone z;
   z.readings = run;
   z.x_from = readings[run.front()].x;
   z.x_to = readings[run.back()].x;
-  double sum = 0.0, sigma_sum = 0.0;
+  double sum = 0.0, standardised = 0.0;
   for (size_t i : run) {
     sum += fit.residuals[i];
-    sigma_sum += fit.sigmas[i] * sigma_scale;
+    standardised += fit.residuals[i] / fit.sigmas[i];
     if (std::abs(fit.residuals[i]) > std::abs(z.peak_departure_m)) z.peak_departure_m = fit.residuals[i];
   }
   const double m = static_cast<double>(run.size());
   z.mean_departure_m = sum / m;
-  z.significance = std::abs(z.mean_departure_m) / ((sigma_sum / m) / std::sqrt(m));
+  z.significance = std::abs(standardised) / std::sqrt(m);
   z.kind = z.mean_departure_m < 0 ? "below ideal" : "above ideal";
   std::ostringstream d;
   d.setf(std::ios::fixed);
@@ -46,21 +48,20 @@ DeformationZone make_zone(const ShapeFit& fit, const Readings& readings, const s
 
 }  // namespace
 
-std::vector<DeformationZone> find_deformation_zones(const ShapeFit& fit, const Readings& readings,
-                                                    double sigma_scale) {
+std::vector<DeformationZone> find_deformation_zones(const ShapeFit& fit, const Readings& readings) {
   std::vector<size_t> order;
   for (size_t i = 0; i < readings.size(); ++i)
     if (fit.used[i]) order.push_back(i);
   std::sort(order.begin(), order.end(), [&](size_t a, size_t b) { return readings[a].x < readings[b].x; });
 
   std::vector<DeformationZone> zones;
-  auto sigma = [&](size_t i) { return fit.sigmas[i] * sigma_scale; };
+  auto sigma = [&](size_t i) { return fit.sigmas[i]; };
   auto close_run = [&](std::vector<size_t>& run) {
     if (run.size() >= 2) {
-      DeformationZone z = make_zone(fit, readings, run, sigma_scale);
-      if (z.significance > 2.0) zones.push_back(std::move(z));
-    } else if (run.size() == 1 && std::abs(fit.residuals[run[0]]) > 3.0 * sigma(run[0])) {
-      zones.push_back(make_zone(fit, readings, run, sigma_scale));
+      DeformationZone z = make_zone(fit, readings, run);
+      if (z.significance > kRunSignificance) zones.push_back(std::move(z));
+    } else if (run.size() == 1 && std::abs(fit.residuals[run[0]]) > kSingleReadingSigmas * sigma(run[0])) {
+      zones.push_back(make_zone(fit, readings, run));
     }
     run.clear();
   };

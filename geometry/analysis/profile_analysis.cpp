@@ -15,6 +15,14 @@ std::string mm(double metres) {
   return s.str();
 }
 
+std::string metres(double value) {
+  std::ostringstream s;
+  s.setf(std::ios::fixed);
+  s.precision(3);
+  s << value;
+  return s.str();
+}
+
 }  // namespace
 
 ProfileAnalysis analyse_profile(const Readings& readings, const ProfileRequest& request) {
@@ -44,12 +52,16 @@ ProfileAnalysis analyse_profile(const Readings& readings, const ProfileRequest& 
 
   const ShapeFit& fit = *out.fit;
   out.uncertainty = propagate_uncertainty(fit, readings, request.uncertainty);
-  out.zones = find_deformation_zones(fit, readings, out.uncertainty.scale);
+  out.zones = find_deformation_zones(fit, readings);
   for (const std::string& note : out.uncertainty.notes) out.warnings.push_back(note);
   for (size_t i : fit.downweighted) {
-    out.warnings.push_back("reading at x = " + mm(readings[i].x) + " mm (line " +
+    out.warnings.push_back("reading at x = " + metres(readings[i].x) + " m (line " +
                            std::to_string(readings[i].source_line) + ") was set aside by the robust fit: " +
                            mm(fit.residuals[i]) + " mm from the curve; it is kept in the data");
+  }
+  if (request.fit.springing_z && fit.family->springing_from_shape()) {
+    out.warnings.push_back("--springing-z was not used: a " + std::string(fit.family->name()) +
+                           " arch's springing line passes through its centres");
   }
   if (springing_gap_ratio(fit) > kMaxSpringingGapRatio) {
     out.warnings.push_back("the readings end " + mm(fit.end_readings_z - fit.springing_z) +

@@ -20,6 +20,30 @@ NormalEquationsFn make_problem(const ShapeFamily& family, const std::vector<Poin
   };
 }
 
+// Readings much farther from the reported intrados (the upper branch between
+// the springings, sampled finely) than from the fitted curve itself: more than
+// 5σ + 5 mm beyond their residual. A full circle or ellipse can pass close to
+// readings on its underside; the intrados reported from it does not.
+int readings_off_the_arch(const ShapeFamily& family, const SolverVector& params, const Outline& outline,
+                          const std::vector<Point2>& points, const std::vector<double>& inverse_variance) {
+  const std::vector<Point2> curve = sample_outline(outline, 256);
+  int off = 0;
+  for (size_t k = 0; k < points.size(); ++k) {
+    const Point2 p = points[k];
+    double best = INFINITY;
+    for (size_t i = 1; i < curve.size(); ++i) {
+      const double ax = curve[i - 1].x, az = curve[i - 1].z;
+      const double bx = curve[i].x - ax, bz = curve[i].z - az;
+      const double len2 = bx * bx + bz * bz;
+      const double t = len2 > 0 ? std::clamp(((p.x - ax) * bx + (p.z - az) * bz) / len2, 0.0, 1.0) : 0.0;
+      best = std::min(best, std::hypot(p.x - ax - t * bx, p.z - az - t * bz));
+    }
+    const double residual = std::abs(family.signed_distance(params, p, nullptr));
+    if (best > residual + 5.0 / std::sqrt(inverse_variance[k]) + 0.005) ++off;
+  }
+  return off;
+}
+
 // Smallest over largest spread of the points about their centroid: zero for
 // points on one straight line, whatever its direction.
 double straightness(const std::vector<Point2>& points) {
@@ -163,12 +187,22 @@ FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const 
   }
   const auto outline = family.outline(fit.params, fit.springing_z);
   if (!outline) {
-    outcome.error = "the fitted " + std::string(family.name()) +
-                    " curve does not reach the springing level: check the springing level";
+    outcome.error = "no " + std::string(family.name()) +
+                    " arch fits between the springings at that level (it lies above the crown, or "
+                    "below the centre of the curve): check the springing level";
     return outcome;
   }
   fit.outline = *outline;
   fit.springing_z = outline->z_springing;
+  if (const int off = readings_off_the_arch(family, fit.params, *outline, points, inverse_variance); off * 4 > n) {
+    // The full curve fits, but the readings lie on its underside: the arch
+    // reported would not pass through them.
+    outcome.error = std::to_string(off) + " of " + std::to_string(n) +
+                    " readings are not on the upper side of the fitted " + std::string(family.name()) +
+                    " curve: do the readings sag downward? Check the sign of the offsets "
+                    "(offset_direction) and the datum";
+    return outcome;
+  }
 
   double sum_sq = 0.0;
   int effective = 0;
@@ -179,15 +213,18 @@ FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const 
     const double d = fit.residuals[i];
     fit.weights[i] = robust[static_cast<size_t>(k)];
     fit.chi2 += weights[static_cast<size_t>(k)] * d * d;
+    if (fit.weights[i] < 0.5) {
+      fit.downweighted.push_back(i);  // reported on its own; not in the RMS of the fit
+      continue;
+    }
     sum_sq += d * d;
     fit.max_abs_m = std::max(fit.max_abs_m, std::abs(d));
-    if (fit.weights[i] > 0.0) ++effective;
-    if (fit.weights[i] < 0.5) fit.downweighted.push_back(i);
+    ++effective;
   }
   fit.n_used = n;
   fit.dof = std::max(1, effective - p);
   fit.reduced_chi2 = fit.chi2 / fit.dof;
-  fit.rms_m = std::sqrt(sum_sq / n);
+  fit.rms_m = std::sqrt(sum_sq / std::max(1, effective));
   const double log_term = n * std::log(std::max(fit.chi2, 1e-300) / n);
   fit.aic = log_term + 2.0 * p;
   fit.bic = log_term + p * std::log(static_cast<double>(n));

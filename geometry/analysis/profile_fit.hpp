@@ -46,8 +46,8 @@ struct ShapeFit {
   int dof = 0;
   double chi2 = 0.0;            // Σ w (r/σ)² over the readings used
   double reduced_chi2 = 0.0;    // chi2 / dof
-  double rms_m = 0.0;           // √(Σ r²/n), readings used, unweighted
-  double max_abs_m = 0.0;
+  double rms_m = 0.0;           // √(Σ r²/n), readings used and kept by the robust fit, unweighted
+  double max_abs_m = 0.0;       // over the same readings
   double aic = 0.0, bic = 0.0;  // Gaussian likelihood with σ known up to one common scale
   std::vector<size_t> downweighted;  // readings the robust fit set aside (weight < 0.5)
 };
@@ -71,7 +71,10 @@ std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::v
 // springings; large when the shape extrapolates far below the readings, as a
 // full circle does through a segmental arch's readings.
 double springing_gap_ratio(const ShapeFit& fit);
-constexpr double kMaxSpringingGapRatio = 0.1;
+// 0.35: readings that stop short of the springings (silt, a hidden skewback)
+// are common; a full circle through a segmental arch's readings (span/rise 4:
+// gap 1.5 times the rise) is not an arch.
+constexpr double kMaxSpringingGapRatio = 0.35;
 
 // The springing level of families that do not fix it: mean z of the readings
 // with the smallest and largest x among `points`.

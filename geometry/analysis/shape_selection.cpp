@@ -34,19 +34,19 @@ std::string fmt(double v) {
 }
 
 // Does the chosen family's own test say the arch is semicircular? Fills `why`.
-bool reduces_to_semicircle(const ShapeFit& fit, const std::vector<double>& end_sigmas, std::string& why) {
+// `level` is the springing level the readings imply (the end readings, or the
+// level the surveyor gave) and `level_variance` its variance.
+bool reduces_to_semicircle(const ShapeFit& fit, double level, double level_variance, std::string& why) {
   const std::string_view name = fit.family->name();
   const Eigen::Index p = fit.params.size();
   SolverVector g = SolverVector::Zero(p);
   double difference = 0.0, sd = 0.0;
-  if (name == "segmental") {
-    // Centre height minus the springing level from the end readings.
+  if (name == "segmental" || name == "semicircular") {
+    // Both fit the same circle: compare its centre height with the springing level.
     g[1] = 1.0;
-    difference = fit.params[1] - fit.springing_z;
-    const double level_var = fit.springing_from_ends
-                                 ? (end_sigmas[0] * end_sigmas[0] + end_sigmas[1] * end_sigmas[1]) / 4
-                                 : 0.0;
-    sd = std::sqrt(linear_sd(fit, g) * linear_sd(fit, g) + std::max(1.0, fit.reduced_chi2) * level_var);
+    difference = fit.params[1] - level;
+    const double centre_sd = linear_sd(fit, g);
+    sd = std::sqrt(centre_sd * centre_sd + std::max(1.0, fit.reduced_chi2) * level_variance);
     why = "the circle's centre lies " + fmt(difference * 1000) + " mm from the springing level (sd " +
           fmt(sd * 1000) + " mm)";
   } else if (name == "elliptical") {
@@ -123,7 +123,8 @@ ShapeSelection select_shape(const Readings& readings, const FitOptions& options)
   }
 
   // Semicircular and segmental fit the same circle; the springing test decides.
-  if (s.candidates[static_cast<size_t>(s.chosen)].family == &semicircular_family()) {
+  const bool chose_semicircle = s.candidates[static_cast<size_t>(s.chosen)].family == &semicircular_family();
+  if (chose_semicircle) {
     const int seg = index_of(s, segmental_family());
     if (seg >= 0 && s.candidates[static_cast<size_t>(seg)].fit) s.chosen = seg;
   }
@@ -143,14 +144,23 @@ ShapeSelection select_shape(const Readings& readings, const FitOptions& options)
   }
 
   const ShapeFit& chosen_fit = *s.candidates[static_cast<size_t>(s.chosen)].fit;
+  const double level = options.springing_z.value_or(chosen_fit.end_readings_z);
+  const double level_variance =
+      options.springing_z ? 0.0 : (end_sigmas[0] * end_sigmas[0] + end_sigmas[1] * end_sigmas[1]) / 4;
   std::string why;
   const int semi = index_of(s, semicircular_family());
   if (semi >= 0 && s.candidates[static_cast<size_t>(semi)].fit &&
       s.candidates[static_cast<size_t>(semi)].supported &&
-      reduces_to_semicircle(chosen_fit, end_sigmas, why)) {
-    s.reason = "semicircular: the " + std::string(chosen_fit.family->name()) +
-               " fit is not distinguishable from a semicircle (" + why + ")";
+      reduces_to_semicircle(chosen_fit, level, level_variance, why)) {
+    s.reason = chosen_fit.family == &semicircular_family()
+                   ? "semicircular: " + why + ", within twice its uncertainty"
+                   : "semicircular: the " + std::string(chosen_fit.family->name()) +
+                         " fit is not distinguishable from a semicircle (" + why + ")";
     s.chosen = semi;
+    return s;
+  }
+  if (chosen_fit.family == &semicircular_family()) {
+    s.reason = "semicircular: no segmental arc lies below the springing level (" + why + ")";
     return s;
   }
   s.reason = std::string(chosen_fit.family->name()) +

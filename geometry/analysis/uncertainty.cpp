@@ -14,7 +14,9 @@ namespace soffit {
 namespace {
 
 constexpr double kZ975 = 1.959963984540054;
-constexpr double kZ99 = 2.326347874040841;
+constexpr double kZ95 = 1.6448536269514722;  // one-sided 95% normal quantile
+// Below this, the 2.5% and 97.5% order statistics are not estimated at all.
+constexpr int kMinimumDraws = 100;
 
 // Every derived value in one flat vector: geometry first, then parameters.
 std::optional<Eigen::VectorXd> flatten(const ShapeFamily& family, const SolverVector& params,
@@ -55,14 +57,14 @@ Uncertainty propagate_uncertainty(const ShapeFit& fit, const Readings& readings,
   const ShapeFamily& family = *fit.family;
   Uncertainty out;
   out.seed = options.seed;
-  out.reduced_chi2_limit = chi_square_quantile(fit.dof, kZ99) / fit.dof;
+  out.reduced_chi2_limit = chi_square_quantile(fit.dof, kZ95) / fit.dof;
   if (fit.reduced_chi2 > out.reduced_chi2_limit) {
     out.widened = true;
     out.scale = std::sqrt(fit.reduced_chi2);
     std::ostringstream note;
     note.precision(3);
     note << "the scatter about the fit exceeds the stated precision (reduced chi-square "
-         << fit.reduced_chi2 << " on " << fit.dof << " degrees of freedom, 99% limit "
+         << fit.reduced_chi2 << " on " << fit.dof << " degrees of freedom, 95% limit "
          << out.reduced_chi2_limit << "): every range is widened by a factor " << out.scale;
     out.notes.push_back(note.str());
   }
@@ -167,11 +169,15 @@ Uncertainty propagate_uncertainty(const ShapeFit& fit, const Readings& readings,
     for (Eigen::Index i = 0; i < q; ++i) columns[static_cast<size_t>(i)].push_back((*values)[i]);
   }
   out.draws_used = static_cast<int>(columns[0].size());
-  if (out.draws_used < std::max(20, out.draws_requested / 2)) {
+  if (out.draws_used < kMinimumDraws || out.draws_used < out.draws_requested / 2) {
     out.method = "linearised";
-    out.notes.push_back("most Monte Carlo refits failed (" + std::to_string(out.draws_used) + " of " +
-                        std::to_string(out.draws_requested) +
-                        " succeeded): ranges are the linearised ones and may understate the uncertainty");
+    out.notes.push_back(
+        out.draws_used < out.draws_requested / 2
+            ? "most Monte Carlo refits failed (" + std::to_string(out.draws_used) + " of " +
+                  std::to_string(out.draws_requested) +
+                  " succeeded): ranges are the linearised ones and may understate the uncertainty"
+            : std::to_string(out.draws_requested) + " Monte Carlo draws are too few for a 95% interval (at least " +
+                  std::to_string(kMinimumDraws) + " are needed): ranges are the linearised ones");
     out.geometry = out.geometry_linearised;
     out.parameters = out.parameters_linearised;
     return out;

@@ -1,6 +1,7 @@
 // Pointed (two-centred): two arcs of radius ρ, each centred on the springing
 // line at distance ρ from its own springing, meeting at the crown.
 // Crown height √(ρL − L²/4); equilateral when ρ = L; semicircular when ρ = L/2.
+// ρ < L/2 is outside the family (the arcs would cross and dip at the crown).
 // Parameters: mid-span x, springing level, half-span h = L/2, radius ρ.
 #include <algorithm>
 #include <cmath>
@@ -31,7 +32,8 @@ class Pointed final : public ShapeFamily {
     const double h = (hi->x - lo->x) / 2.0, zs = (lo->z + hi->z) / 2.0, rise = top - zs;
     if (!(h > 0.0) || !(rise > 0.0)) return std::nullopt;
     SolverVector p(4);
-    p << (lo->x + hi->x) / 2.0, zs, h, (rise * rise + h * h) / (2.0 * h);
+    // ρ from the crown height, but never below h: ρ < L/2 would cross the centres.
+    p << (lo->x + hi->x) / 2.0, zs, h, std::max((rise * rise + h * h) / (2.0 * h), 1.001 * h);
     return p;
   }
 
@@ -43,7 +45,8 @@ class Pointed final : public ShapeFamily {
 
   std::optional<Outline> outline(const SolverVector& p, double) const override {
     const double xm = p[0], zs = p[1], h = p[2], rho = p[3];
-    if (!(h > 0.0) || !(rho > 0.5 * h)) return std::nullopt;
+    // ρ = h is the semicircle; ρ < h would cross the centres and dip at the crown.
+    if (!(h > 0.0) || !(rho >= h)) return std::nullopt;
     Outline o;
     o.z_springing = zs;
     o.add({OutlinePiece::Kind::circular, xm - h + rho, zs, rho, 0.0, xm - h, xm});

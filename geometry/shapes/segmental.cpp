@@ -47,8 +47,10 @@ class Segmental final : public ShapeFamily {
   }
 
   std::optional<Outline> outline(const SolverVector& p, double springing_z) const override {
+    // The springing line must lie above the centre (or on it): below it the
+    // arc is more than a semicircle (horseshoe), which this family does not describe.
     const double dz = springing_z - p[1];
-    if (!(p[2] > 0.0) || !(std::abs(dz) < p[2])) return std::nullopt;
+    if (!(p[2] > 0.0) || !(dz >= 0.0) || !(dz < p[2])) return std::nullopt;
     const double half_chord = std::sqrt(p[2] * p[2] - dz * dz);
     Outline o;
     o.z_springing = springing_z;

@@ -39,7 +39,8 @@ class ThreeCentred final : public ShapeFamily {
     double best_cost = INFINITY;
     for (double f : {0.2, 0.35, 0.5, 0.65, 0.8}) {
       SolverVector p(5);
-      p << (lo->x + hi->x) / 2.0, zs, h, rise, f * std::min(h, rise);
+      const double r = std::min(rise, 0.999 * h);
+      p << (lo->x + hi->x) / 2.0, zs, h, r, f * std::min(h, r);
       const auto o = outline(p, 0.0);
       if (!o) continue;
       double cost = 0.0;
@@ -63,7 +64,9 @@ class ThreeCentred final : public ShapeFamily {
 
   std::optional<Outline> outline(const SolverVector& p, double) const override {
     const double xm = p[0], zs = p[1], h = p[2], rise = p[3], r1 = p[4];
-    if (!(h > 0.0) || !(r1 > 0.0) || !(r1 < h) || !(r1 < rise)) return std::nullopt;
+    // A basket-handle arch rises no higher than its half-span: beyond that the
+    // crown centre climbs above the springing and the arcs no longer meet.
+    if (!(h > 0.0) || !(r1 > 0.0) || !(r1 < h) || !(r1 < rise) || !(rise <= h)) return std::nullopt;
     const double big_r = crown_radius(h, rise, r1);
     if (!(big_r > r1) || !std::isfinite(big_r)) return std::nullopt;
     const double ccz = zs + rise - big_r;  // crown centre height

@@ -37,6 +37,9 @@ struct SheetLimits {
   // A millimetre column whose values are all below this, with decimals,
   // looks like metres (no arch soffit is within 5 mm of its datum everywhere).
   double mm_column_all_below = 5.0;
+  // A millimetre value beyond this (100 m) is no offset or distance on an
+  // arch: a slip of ×1000 or a stray digit.
+  double mm_column_largest = 100000.0;
   // A precision below this (in mm) looks like metres written in a mm column.
   double sigma_mm_smallest = 0.1;
   // Out-of-plane scatter of a point list above which a warning is given; a

@@ -51,6 +51,13 @@ void check_millimetres(const ColumnValues& c, const std::string& file, const std
     }
     return;
   }
+  for (const auto& [line, v] : c.values) {
+    if (std::abs(v) > lim.mm_column_largest) {
+      throw InputError(file, line, c.field,
+                       "a value of " + format_fixed(v, 0) + " mm (" + format_fixed(v / 1000.0, 1) +
+                           " m) is beyond any arch: check for a slip of x1000 or a stray digit");
+    }
+  }
   bool any_fraction = false;
   for (const auto& [line, v] : c.values) {
     if (std::abs(v) >= lim.mm_column_all_below) return;

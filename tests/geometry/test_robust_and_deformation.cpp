@@ -45,7 +45,7 @@ TEST_CASE("a local sag across several readings is reported as a zone below the i
   for (int k = 0; k < 4; ++k) readings[static_cast<size_t>(12 + k)].z -= drop[k];
   const FitOutcome out = fit_shape(segmental_family(), readings, {});
   REQUIRE(out.fit);
-  const auto zones = find_deformation_zones(*out.fit, readings, 1.0);
+  const auto zones = find_deformation_zones(*out.fit, readings);
   const auto below = std::find_if(zones.begin(), zones.end(),
                                   [](const DeformationZone& z) { return z.kind == "below ideal"; });
   REQUIRE(below != zones.end());
@@ -65,5 +65,5 @@ TEST_CASE("readings within their precision give no zones") {
   for (Reading& r : stated) r.sigma = 0.003;  // scatter well inside the stated σ
   const FitOutcome out = fit_shape(semicircular_family(), stated, {});
   REQUIRE(out.fit);
-  CHECK(find_deformation_zones(*out.fit, stated, 1.0).empty());
+  CHECK(find_deformation_zones(*out.fit, stated).empty());
 }

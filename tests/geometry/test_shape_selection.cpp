@@ -44,7 +44,7 @@ TEST_CASE("a circle centred on the end readings' level is semicircular, not segm
   const ShapeSelection s = select_shape(readings, {});
   REQUIRE(s.chosen >= 0);
   CHECK(s.candidates[static_cast<size_t>(s.chosen)].family->name() == "semicircular");
-  CHECK(s.reason.find("not distinguishable from a semicircle") != std::string::npos);
+  CHECK(s.reason.find("centre lies") != std::string::npos);
 }
 
 TEST_CASE("auto reports every candidate, fitted or not") {
@@ -62,7 +62,8 @@ TEST_CASE("auto reports every candidate, fitted or not") {
       CHECK_FALSE(c.error.empty());
     }
   }
-  CHECK(fitted >= 4);
+  // Families that cannot describe a segmental arch (pointed: ρ ≥ L/2 only) may fail to fit.
+  CHECK(fitted >= 3);
   // The chosen family fits within the readings' precision (σ 3 mm).
   CHECK(s.candidates[static_cast<size_t>(s.chosen)].fit->rms_m < 0.005);
 }
