@@ -7,6 +7,7 @@
 
 #include "geometry/fit/ellipse_direct.hpp"
 #include "geometry/fit/ellipse_distance.hpp"
+#include "geometry/shapes/arch_extent.hpp"
 #include "geometry/shapes/families.hpp"
 
 namespace soffit {
@@ -38,13 +39,9 @@ class Elliptical final : public ShapeFamily {
         return p;
       }
     }
-    const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
-                                              [](Point2 a, Point2 b) { return a.x < b.x; });
-    double top = points[0].z;
-    for (const Point2& q : points) top = std::max(top, q.z);
-    const double zs = (lo->z + hi->z) / 2.0;
-    if (!(hi->x > lo->x) || !(top > zs)) return std::nullopt;
-    p << (lo->x + hi->x) / 2.0, zs, (hi->x - lo->x) / 2.0, top - zs;
+    const auto e = arch_extent(points);
+    if (!e) return std::nullopt;
+    p << e->mid_x, e->springing_z, e->half_span, e->rise;
     return p;
   }
 

@@ -7,6 +7,7 @@
 #include <cmath>
 
 #include "geometry/shapes/arc_segment.hpp"
+#include "geometry/shapes/arch_extent.hpp"
 #include "geometry/shapes/families.hpp"
 
 namespace soffit {
@@ -25,15 +26,12 @@ class Pointed final : public ShapeFamily {
 
   std::optional<SolverVector> initial_guess(std::span<const Point2> points) const override {
     if (points.size() < 4) return std::nullopt;
-    const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
-                                              [](Point2 a, Point2 b) { return a.x < b.x; });
-    double top = points[0].z;
-    for (const Point2& p : points) top = std::max(top, p.z);
-    const double h = (hi->x - lo->x) / 2.0, zs = (lo->z + hi->z) / 2.0, rise = top - zs;
-    if (!(h > 0.0) || !(rise > 0.0)) return std::nullopt;
+    const auto e = arch_extent(points);
+    if (!e) return std::nullopt;
+    const double h = e->half_span, rise = e->rise;
     SolverVector p(4);
     // ρ from the crown height, but never below h: ρ < L/2 would cross the centres.
-    p << (lo->x + hi->x) / 2.0, zs, h, std::max((rise * rise + h * h) / (2.0 * h), 1.001 * h);
+    p << e->mid_x, e->springing_z, h, std::max((rise * rise + h * h) / (2.0 * h), 1.001 * h);
     return p;
   }
 

@@ -6,6 +6,7 @@
 #include <cmath>
 
 #include "geometry/shapes/arc_segment.hpp"
+#include "geometry/shapes/arch_extent.hpp"
 #include "geometry/shapes/families.hpp"
 
 namespace soffit {
@@ -28,19 +29,16 @@ class ThreeCentred final : public ShapeFamily {
 
   std::optional<SolverVector> initial_guess(std::span<const Point2> points) const override {
     if (points.size() < 5) return std::nullopt;
-    const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
-                                              [](Point2 a, Point2 b) { return a.x < b.x; });
-    double top = points[0].z;
-    for (const Point2& p : points) top = std::max(top, p.z);
-    const double h = (hi->x - lo->x) / 2.0, zs = (lo->z + hi->z) / 2.0, rise = top - zs;
-    if (!(h > 0.0) || !(rise > 0.0)) return std::nullopt;
+    const auto e = arch_extent(points);
+    if (!e) return std::nullopt;
+    const double h = e->half_span, rise = e->rise;
     // The haunch radius is the least obvious parameter: try a few and keep the best.
     std::optional<SolverVector> best;
     double best_cost = INFINITY;
     for (double f : {0.2, 0.35, 0.5, 0.65, 0.8}) {
       SolverVector p(5);
       const double r = std::min(rise, 0.999 * h);
-      p << (lo->x + hi->x) / 2.0, zs, h, r, f * std::min(h, r);
+      p << e->mid_x, e->springing_z, h, r, f * std::min(h, r);
       const auto o = outline(p, 0.0);
       if (!o) continue;
       double cost = 0.0;
