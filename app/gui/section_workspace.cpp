@@ -3,6 +3,7 @@
 #include <imgui.h>
 
 #include <algorithm>
+#include <cmath>
 #include <chrono>
 #include <cstdio>
 #include <filesystem>
@@ -46,7 +47,11 @@ void SectionWorkspace::select(size_t index) {
 
 void SectionWorkspace::start_fit() {
   const Entry& e = entries_[selected_];
-  if (!e.sheet || pending_.valid()) return;
+  if (!e.sheet) return;
+  if (pending_.valid()) {
+    refit_wanted_ = true;  // started again when the running fit comes back
+    return;
+  }
   // The job takes a copy in and hands a result out: the UI never shares state with it.
   ProfileRequest request;
   request.shape = shape_;
@@ -57,8 +62,140 @@ void SectionWorkspace::start_fit() {
 }
 
 void SectionWorkspace::poll() {
-  if (pending_.valid() && pending_.wait_for(std::chrono::seconds(0)) == std::future_status::ready)
+  if (pending_.valid() && pending_.wait_for(std::chrono::seconds(0)) == std::future_status::ready) {
     analysis_ = pending_.get();
+    if (refit_wanted_) {
+      refit_wanted_ = false;
+      start_fit();
+    }
+  }
+}
+
+void SectionWorkspace::apply_edit(app::ReadingEdit edit) {
+  Entry& e = entries_[selected_];
+  e.history.apply(e.sheet->readings, std::move(edit));
+  start_fit();
+}
+
+void SectionWorkspace::undo() {
+  Entry& e = entries_[selected_];
+  if (e.sheet && e.history.undo(e.sheet->readings)) start_fit();
+}
+
+void SectionWorkspace::redo() {
+  Entry& e = entries_[selected_];
+  if (e.sheet && e.history.redo(e.sheet->readings)) start_fit();
+}
+
+void SectionWorkspace::draw_edit_bar() {
+  const Entry& e = entries_[selected_];
+  ImGui::BeginDisabled(!e.history.can_undo());
+  if (ImGui::Button("Undo") || (e.history.can_undo() && ImGui::GetIO().KeyCtrl &&
+                                ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Z))))
+    undo();
+  ImGui::EndDisabled();
+  ImGui::SameLine();
+  ImGui::BeginDisabled(!e.history.can_redo());
+  if (ImGui::Button("Redo") || (e.history.can_redo() && ImGui::GetIO().KeyCtrl &&
+                                ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Y))))
+    redo();
+  ImGui::EndDisabled();
+  if (e.history.can_undo()) {
+    ImGui::SameLine();
+    ImGui::AlignTextToFramePadding();
+    ImGui::TextDisabled("last: %s", e.history.next_undo_label().c_str());
+  }
+}
+
+void SectionWorkspace::draw_readings_table() {
+  const Palette& c = palette();
+  Entry& e = entries_[selected_];
+  const ShapeFit& fit = *analysis_->fit;
+  if (!ImGui::BeginTable("readings", 6, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
+  ImGui::TableSetupColumn("#");
+  ImGui::TableSetupColumn("x m");
+  ImGui::TableSetupColumn("z m");
+  ImGui::TableSetupColumn("off curve mm");
+  ImGui::TableSetupColumn("state");
+  ImGui::TableSetupColumn("action");
+  ImGui::TableHeadersRow();
+  const Readings& readings = e.sheet->readings;
+  for (size_t i = 0; i < readings.size() && i < fit.residuals.size(); ++i) {
+    const Reading& r = readings[i];
+    ImGui::PushID(static_cast<int>(i));
+    ImGui::TableNextRow();
+    ImGui::TableNextColumn();
+    ImGui::Text("%zu", i + 1);
+    ImGui::TableNextColumn();
+    ImGui::Text("%.3f", r.x);
+    ImGui::TableNextColumn();
+    ImGui::Text("%.3f", r.z);
+    ImGui::TableNextColumn();
+    // Beyond 2σ is shown in the departure colours: out of tolerance, look again.
+    const double res = fit.residuals[i];
+    const bool beyond = std::abs(res) > 2.0 * fit.sigmas[i];
+    if (beyond) ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(res < 0 ? c.residual_below : c.residual_above));
+    ImGui::Text("%+.1f%s", res * 1000, beyond ? "  (> 2 sigma)" : "");
+    if (beyond) ImGui::PopStyleColor();
+    ImGui::TableNextColumn();
+    if (r.excluded)
+      ImGui::TextWrapped("excluded: %s", r.exclusion_reason.c_str());
+    else if (r.check)
+      ImGui::TextUnformatted("closing check");
+    else
+      ImGui::TextUnformatted("used");
+    ImGui::TableNextColumn();
+    if (!r.check) {
+      if (r.excluded) {
+        if (ImGui::Button("Use again")) {
+          app::ReadingEdit edit{i, r, r, "use reading " + std::to_string(i + 1) + " again"};
+          edit.after.excluded = false;
+          edit.after.exclusion_reason.clear();
+          apply_edit(std::move(edit));
+        }
+      } else if (ImGui::Button("Exclude...")) {
+        excluding_ = i;
+        reason_[0] = '\0';
+        ImGui::OpenPopup("Exclude reading");
+      }
+    }
+    draw_exclude_dialog();
+    ImGui::PopID();
+  }
+  ImGui::EndTable();
+}
+
+void SectionWorkspace::draw_exclude_dialog() {
+  if (!ImGui::BeginPopupModal("Exclude reading", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  Entry& e = entries_[selected_];
+  const size_t i = excluding_.value_or(0);
+  ImGui::Text("Exclude reading %zu from the fit? It stays in the data with its reason.", i + 1);
+  // Reasons from the trade's common errors (FIELD.md §3.3), one tap each.
+  for (const char* quick : {"protruding unit", "recessed joint", "deposit or vegetation", "blunder"}) {
+    if (ImGui::Button(quick)) std::snprintf(reason_, sizeof reason_, "%s", quick);
+    ImGui::SameLine();
+  }
+  ImGui::NewLine();
+  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 24);
+  ImGui::InputText("reason", reason_, sizeof reason_);
+  const bool has_reason = reason_[0] != '\0';
+  ImGui::BeginDisabled(!has_reason);
+  if (ImGui::Button("Exclude") && has_reason && i < e.sheet->readings.size()) {
+    const Reading& r = e.sheet->readings[i];
+    app::ReadingEdit edit{i, r, r, "exclude reading " + std::to_string(i + 1)};
+    edit.after.excluded = true;
+    edit.after.exclusion_reason = reason_;
+    apply_edit(std::move(edit));
+    excluding_.reset();
+    ImGui::CloseCurrentPopup();
+  }
+  ImGui::EndDisabled();
+  ImGui::SameLine();
+  if (ImGui::Button("Cancel")) {
+    excluding_.reset();
+    ImGui::CloseCurrentPopup();
+  }
+  ImGui::EndPopup();
 }
 
 void SectionWorkspace::draw_sheet_list() {
@@ -83,7 +220,8 @@ void SectionWorkspace::draw_results() {
     ImGui::TextWrapped("This sheet cannot be read: %s", e.error.c_str());
     return;
   }
-  if (busy() || !analysis_) {
+  draw_edit_bar();
+  if (!analysis_) {
     ImGui::TextUnformatted("Fitting...");
     return;
   }
@@ -93,12 +231,17 @@ void SectionWorkspace::draw_results() {
   }
   const ShapeFit& fit = *analysis_->fit;
   const auto& g = analysis_->uncertainty.geometry;
-  ImGui::Text("Shape: %s   span %.4f m (95%%: %.4f to %.4f)   rise %.1f mm (95%%: %.1f to %.1f)",
-              std::string(fit.family->name()).c_str(), g[0].value, g[0].lo, g[0].hi, g[1].value * 1000,
-              g[1].lo * 1000, g[1].hi * 1000);
+  ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(c.caution));
+  ImGui::TextWrapped("Survey data, not an assessment: a qualified engineer decides what it means.");
+  ImGui::PopStyleColor();
+  ImGui::Text("Shape: %s", std::string(fit.family->name()).c_str());
+  ImGui::TextWrapped("Span %.4f m (95%%: %.4f to %.4f)    rise %.1f mm (95%%: %.1f to %.1f)", g[0].value, g[0].lo,
+              g[0].hi, g[1].value * 1000, g[1].lo * 1000, g[1].hi * 1000);
   ImGui::Text("RMS residual %.1f mm, largest %.1f mm, %d readings used", fit.rms_m * 1000,
               fit.max_abs_m * 1000, fit.n_used);
-  draw_profile_plot(e.sheet->readings, *analysis_, ImGui::GetContentRegionAvail().y * 0.55f);
+  if (busy()) ImGui::TextUnformatted("Refitting...");
+  draw_profile_plot(e.sheet->readings, *analysis_, ImGui::GetFontSize() * 16);
+  draw_readings_table();
 
   if (analysis_->selection && ImGui::BeginTable("families", 4, ImGuiTableFlags_Borders)) {
     ImGui::TableSetupColumn("Family");

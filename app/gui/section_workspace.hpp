@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "app/model/edit_history.hpp"
 #include "geometry/analysis/profile_analysis.hpp"
 #include "geometry/sheet/survey_sheet.hpp"
 
@@ -25,16 +26,26 @@ class SectionWorkspace {
   struct Entry {
     std::string path, label, error;
     std::optional<SurveySheet> sheet;
+    app::EditHistory history;  // flags and exclusions made in this view
   };
   void start_fit();
+  void apply_edit(app::ReadingEdit edit);
+  void undo();
+  void redo();
   void draw_sheet_list();
   void draw_results();
+  void draw_edit_bar();
+  void draw_readings_table();
+  void draw_exclude_dialog();
 
   std::vector<Entry> entries_;
   size_t selected_ = 0;
   std::string shape_ = "auto";
   std::future<ProfileAnalysis> pending_;
+  bool refit_wanted_ = false;  // the readings changed while a fit was running
   std::optional<ProfileAnalysis> analysis_;
+  std::optional<size_t> excluding_;  // reading whose exclusion is being confirmed
+  char reason_[160] = {};
 };
 
 }  // namespace soffit::gui
