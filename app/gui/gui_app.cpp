@@ -91,7 +91,10 @@ int run_gui(const GuiOptions& options) {
     else
       glfwWaitEventsTimeout(0.5);
     if (state.restyle) {
-      apply_theme(state.theme, state.scale, kAssets + "/fonts/DejaVuSans.ttf");
+      apply_style(state.theme, state.scale);
+      load_font(state.scale, kAssets + "/fonts/DejaVuSans.ttf");
+      ImGui_ImplOpenGL3_DestroyFontsTexture();
+      ImGui_ImplOpenGL3_CreateFontsTexture();
       state.restyle = false;
     }
     state.sections.poll();

@@ -9,6 +9,7 @@
 #include <filesystem>
 
 #include "app/gui/profile_plot.hpp"
+#include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 #include "exports/fit_report_json.hpp"
 #include "geometry/analysis/derived.hpp"
@@ -90,14 +91,18 @@ void SectionWorkspace::redo() {
 void SectionWorkspace::draw_edit_bar() {
   const Entry& e = entries_[selected_];
   ImGui::BeginDisabled(!e.history.can_undo());
-  if (ImGui::Button("Undo") || (e.history.can_undo() && ImGui::GetIO().KeyCtrl &&
-                                ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Z))))
+  const bool undo_pressed = ImGui::Button("Undo");
+  probe("undo");
+  if (undo_pressed || (e.history.can_undo() && ImGui::GetIO().KeyCtrl &&
+                       ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Z))))
     undo();
   ImGui::EndDisabled();
   ImGui::SameLine();
   ImGui::BeginDisabled(!e.history.can_redo());
-  if (ImGui::Button("Redo") || (e.history.can_redo() && ImGui::GetIO().KeyCtrl &&
-                                ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Y))))
+  const bool redo_pressed = ImGui::Button("Redo");
+  probe("redo");
+  if (redo_pressed || (e.history.can_redo() && ImGui::GetIO().KeyCtrl &&
+                       ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Y))))
     redo();
   ImGui::EndDisabled();
   if (e.history.can_undo()) {
@@ -147,16 +152,22 @@ void SectionWorkspace::draw_readings_table() {
     ImGui::TableNextColumn();
     if (!r.check) {
       if (r.excluded) {
-        if (ImGui::Button("Use again")) {
+        const bool pressed = ImGui::Button("Use again");
+        probe("use again:" + std::to_string(i + 1));
+        if (pressed) {
           app::ReadingEdit edit{i, r, r, "use reading " + std::to_string(i + 1) + " again"};
           edit.after.excluded = false;
           edit.after.exclusion_reason.clear();
           apply_edit(std::move(edit));
         }
-      } else if (ImGui::Button("Exclude...")) {
-        excluding_ = i;
-        reason_[0] = '\0';
-        ImGui::OpenPopup("Exclude reading");
+      } else {
+        const bool pressed = ImGui::Button("Exclude...");
+        probe("exclude:" + std::to_string(i + 1));
+        if (pressed) {
+          excluding_ = i;
+          reason_[0] = '\0';
+          ImGui::OpenPopup("Exclude reading");
+        }
       }
     }
     draw_exclude_dialog();
@@ -172,7 +183,9 @@ void SectionWorkspace::draw_exclude_dialog() {
   ImGui::Text("Exclude reading %zu from the fit? It stays in the data with its reason.", i + 1);
   // Reasons from the trade's common errors (FIELD.md §3.3), one tap each.
   for (const char* quick : {"protruding unit", "recessed joint", "deposit or vegetation", "blunder"}) {
-    if (ImGui::Button(quick)) std::snprintf(reason_, sizeof reason_, "%s", quick);
+    const bool pressed = ImGui::Button(quick);
+    probe(std::string("reason:") + quick);
+    if (pressed) std::snprintf(reason_, sizeof reason_, "%s", quick);
     ImGui::SameLine();
   }
   ImGui::NewLine();
@@ -180,7 +193,9 @@ void SectionWorkspace::draw_exclude_dialog() {
   ImGui::InputText("reason", reason_, sizeof reason_);
   const bool has_reason = reason_[0] != '\0';
   ImGui::BeginDisabled(!has_reason);
-  if (ImGui::Button("Exclude") && has_reason && i < e.sheet->readings.size()) {
+  const bool confirm = ImGui::Button("Exclude");
+  probe("confirm exclude");
+  if (confirm && has_reason && i < e.sheet->readings.size()) {
     const Reading& r = e.sheet->readings[i];
     app::ReadingEdit edit{i, r, r, "exclude reading " + std::to_string(i + 1)};
     edit.after.excluded = true;
@@ -202,9 +217,10 @@ void SectionWorkspace::draw_sheet_list() {
   ImGui::TextUnformatted("Sections");
   for (size_t i = 0; i < entries_.size(); ++i) {
     const bool chosen = i == selected_;
-    if (ImGui::Selectable(entries_[i].label.c_str(), chosen, 0,
-                          ImVec2(0, ImGui::GetFrameHeight())) && !chosen && !busy())
-      select(i);
+    const bool pressed = ImGui::Selectable(entries_[i].label.c_str(), chosen, 0,
+                                           ImVec2(0, ImGui::GetFrameHeight()));
+    probe("sheet:" + entries_[i].label);
+    if (pressed && !chosen && !busy()) select(i);
   }
 }
 

@@ -22,6 +22,12 @@ class SectionWorkspace {
   bool busy() const { return pending_.valid(); }
   void draw();
 
+  // What the view shows, for tests that drive it through ImGui's input.
+  const std::optional<ProfileAnalysis>& analysis() const { return analysis_; }
+  const Readings* readings() const {
+    return entries_.empty() || !entries_[selected_].sheet ? nullptr : &entries_[selected_].sheet->readings;
+  }
+
  private:
   struct Entry {
     std::string path, label, error;

@@ -2,8 +2,6 @@
 
 #include <imgui.h>
 
-#include <backends/imgui_impl_opengl3.h>
-
 namespace soffit::gui {
 
 namespace {
@@ -31,7 +29,7 @@ void set_palette(Theme theme) {
 
 const Palette& palette() { return g_palette; }
 
-void apply_theme(Theme theme, float scale, const std::string& font_path) {
+void apply_style(Theme theme, float scale) {
   ImGuiStyle style;
   if (theme == Theme::sunlight) {
     ImGui::StyleColorsLight(&style);
@@ -58,13 +56,14 @@ void apply_theme(Theme theme, float scale, const std::string& font_path) {
   ImGui::GetStyle() = style;
   set_palette(theme);
 
+  ImGui::GetIO().MouseDragThreshold = 12.0f * scale;
+}
+
+void load_font(float scale, const std::string& font_path) {
   ImGuiIO& io = ImGui::GetIO();
-  io.MouseDragThreshold = 12.0f * scale;
   io.Fonts->Clear();
   if (!io.Fonts->AddFontFromFileTTF(font_path.c_str(), 20.0f * scale)) io.Fonts->AddFontDefault();
   io.Fonts->Build();
-  ImGui_ImplOpenGL3_DestroyFontsTexture();
-  ImGui_ImplOpenGL3_CreateFontsTexture();
 }
 
 }  // namespace soffit::gui

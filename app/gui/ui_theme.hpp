@@ -8,9 +8,13 @@ namespace soffit::gui {
 
 enum class Theme { sunlight, shade };
 
-// Rebuilds the style for `theme` at `scale` (touch-sized targets at scale 1)
-// and reloads the font at the scaled size. Call between frames only.
-void apply_theme(Theme theme, float scale, const std::string& font_path);
+// Rebuilds the style and palette for `theme` at `scale` (touch-sized targets
+// at scale 1). Call between frames only.
+void apply_style(Theme theme, float scale);
+
+// Rebuilds the font atlas with the TTF at the scaled size (the built-in font
+// when the file is missing). The renderer must then re-upload the atlas.
+void load_font(float scale, const std::string& font_path);
 
 // Colours used by views, from the active theme.
 struct Palette {
