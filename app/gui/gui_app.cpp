@@ -82,9 +82,10 @@ int run_gui(const GuiOptions& options) {
     state.scale = std::clamp(std::max(sx, sy), 0.75f, 2.5f);
   }
   state.sections.load_folder(kAssets + "/sheets");
+  if (options.view != "section") state.sections.show_dialog_for_screenshot(options.view);
 
   const bool capturing = !options.screenshot_path.empty();
-  int frame = 0, exit_code = 0;
+  int frame = 0, settled = 0, exit_code = 0;
   while (!glfwWindowShouldClose(window)) {
     if (capturing || state.sections.busy())
       glfwPollEvents();
@@ -121,8 +122,10 @@ int run_gui(const GuiOptions& options) {
     ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
 
     ++frame;
-    // Capture once the fit has arrived and a few frames have settled the layout.
-    if (capturing && ((frame >= options.screenshot_frames && !state.sections.busy()) || frame > 600)) {
+    settled = state.sections.busy() || !state.sections.analysis() ? 0 : settled + 1;
+    // Capture once the fit has arrived and a few frames have settled the layout
+    // (a dialog opened for the screenshot appears a frame after it is asked for).
+    if (capturing && ((frame >= options.screenshot_frames && settled >= 4) || frame > 600)) {
       if (!write_back_buffer_png(options.screenshot_path, w, h)) {
         std::fprintf(stderr, "soffit: cannot write %s\n", options.screenshot_path.c_str());
         exit_code = 1;

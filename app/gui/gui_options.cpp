@@ -19,8 +19,8 @@ bool parse_gui_options(int argc, char** argv, GuiOptions& options, std::string& 
       const char* v = value();
       if (!v) return error = "--view needs a view name", false;
       options.view = v;
-      if (options.view != "section")
-        return error = "unknown view '" + options.view + "' (views: section)", false;
+      if (options.view != "section" && options.view != "keypad" && options.view != "exclude")
+        return error = "unknown view '" + options.view + "' (views: section, keypad, exclude)", false;
     } else if (arg == "--scale") {
       const char* v = value();
       const std::string_view text = v ? v : "";

@@ -134,7 +134,27 @@ void SectionWorkspace::draw_readings_table() {
     ImGui::TableNextColumn();
     ImGui::Text("%.3f", r.x);
     ImGui::TableNextColumn();
-    ImGui::Text("%.3f", r.z);
+    // Tap the height to correct a misread value on the keypad (recorded, undoable).
+    char z_label[32];
+    std::snprintf(z_label, sizeof z_label, "%.3f", r.z);
+    const bool middle = i == readings.size() / 2;
+    const bool correct = ImGui::Button(z_label) || (middle && screenshot_dialog_ == "keypad");
+    probe("z:" + std::to_string(i + 1));
+    if (correct) {
+      correcting_ = i;
+      keypad_.begin("Height z (m) of reading " + std::to_string(i + 1), r.z, 3);
+      ImGui::OpenPopup(keypad_.popup_id().c_str());
+    }
+    if (correcting_ == i) {
+      if (const auto value = keypad_.draw()) {
+        app::ReadingEdit edit{i, r, r, "correct reading " + std::to_string(i + 1)};
+        edit.after.z = *value;
+        correcting_.reset();
+        apply_edit(std::move(edit));
+      } else if (!ImGui::IsPopupOpen(keypad_.popup_id().c_str())) {
+        correcting_.reset();
+      }
+    }
     ImGui::TableNextColumn();
     // Beyond 2σ is shown in the departure colours: out of tolerance, look again.
     const double res = fit.residuals[i];
@@ -161,7 +181,8 @@ void SectionWorkspace::draw_readings_table() {
           apply_edit(std::move(edit));
         }
       } else {
-        const bool pressed = ImGui::Button("Exclude...");
+        const bool pressed =
+            ImGui::Button("Exclude...") || (i == readings.size() / 2 && screenshot_dialog_ == "exclude");
         probe("exclude:" + std::to_string(i + 1));
         if (pressed) {
           excluding_ = i;
@@ -174,6 +195,7 @@ void SectionWorkspace::draw_readings_table() {
     ImGui::PopID();
   }
   ImGui::EndTable();
+  screenshot_dialog_.clear();  // a dialog requested for a screenshot opens once
 }
 
 void SectionWorkspace::draw_exclude_dialog() {

@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "app/gui/numeric_keypad.hpp"
 #include "app/model/edit_history.hpp"
 #include "geometry/analysis/profile_analysis.hpp"
 #include "geometry/sheet/survey_sheet.hpp"
@@ -21,6 +22,10 @@ class SectionWorkspace {
   void poll();
   bool busy() const { return pending_.valid(); }
   void draw();
+
+  // Opens a dialog on the middle reading once results are shown, so that a
+  // headless screenshot can show it: "keypad" or "exclude".
+  void show_dialog_for_screenshot(const std::string& dialog) { screenshot_dialog_ = dialog; }
 
   // What the view shows, for tests that drive it through ImGui's input.
   const std::optional<ProfileAnalysis>& analysis() const { return analysis_; }
@@ -51,6 +56,9 @@ class SectionWorkspace {
   bool refit_wanted_ = false;  // the readings changed while a fit was running
   std::optional<ProfileAnalysis> analysis_;
   std::optional<size_t> excluding_;  // reading whose exclusion is being confirmed
+  std::optional<size_t> correcting_;  // reading whose height is being corrected on the keypad
+  NumericKeypad keypad_;
+  std::string screenshot_dialog_;
   char reason_[160] = {};
 };
 

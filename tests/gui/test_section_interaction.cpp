@@ -6,6 +6,7 @@
 #include <imgui.h>
 
 #include <chrono>
+#include <cmath>
 #include <string>
 #include <thread>
 
@@ -122,4 +123,24 @@ TEST_CASE("Exclude is refused until a reason is given") {
   REQUIRE(ui.settle(view));
   CHECK_FALSE((*view.readings())[2].excluded);
   CHECK(view.analysis()->fit->n_used == 11);
+}
+
+TEST_CASE("correcting a reading on the keypad refits; Undo restores the reading as taken") {
+  HeadlessUi ui;
+  SectionWorkspace view;
+  view.load_folder(std::string(SOFFIT_ASSETS) + "/sheets");
+  REQUIRE(ui.settle(view));
+  const double taken = (*view.readings())[5].z;
+  const double rms_before = view.analysis()->fit->rms_m;
+  REQUIRE(ui.tap(view, "z:6"));
+  // Clear the shown value and type 1.650 (56 mm above the crown reading of 1.594).
+  for (int k = 0; k < 8; ++k) REQUIRE(ui.tap(view, "key:<"));
+  for (const char* key : {"key:1", "key:.", "key:6", "key:5", "key:0", "key:ok"}) REQUIRE(ui.tap(view, key));
+  REQUIRE(ui.settle(view));
+  CHECK(std::abs((*view.readings())[5].z - 1.650) < 1e-12);
+  CHECK(view.analysis()->fit->rms_m > rms_before);  // the fit moved with the new value
+  REQUIRE(ui.tap(view, "undo"));
+  REQUIRE(ui.settle(view));
+  CHECK((*view.readings())[5].z == taken);
+  CHECK(std::abs(view.analysis()->fit->rms_m - rms_before) < 1e-12);
 }
