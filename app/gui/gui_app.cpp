@@ -14,6 +14,7 @@
 #include <string>
 
 #include "app/gui/gui_options.hpp"
+#include "app/gui/legend.hpp"
 #include "app/gui/screenshot.hpp"
 #include "app/gui/section_workspace.hpp"
 #include "app/gui/ui_theme.hpp"
@@ -28,6 +29,7 @@ struct AppState {
   Theme theme = Theme::sunlight;
   float scale = 1.0f;
   bool restyle = true;
+  bool show_frame_time = false;
   SectionWorkspace sections;
 };
 
@@ -44,7 +46,18 @@ void draw_top_bar(AppState& s) {
   ImGui::SameLine();
   if (ImGui::Button("Text +") && s.scale < 2.49f) s.scale = std::min(2.5f, s.scale + 0.25f), s.restyle = true;
   ImGui::SameLine();
+  ImGui::AlignTextToFramePadding();
   ImGui::Text("scale %.2f", s.scale);
+  ImGui::SameLine();
+  if (ImGui::Button("Legend")) ImGui::OpenPopup("Legend");
+  draw_legend_popup("Legend");
+  ImGui::SameLine();
+  ImGui::Checkbox("Frame time", &s.show_frame_time);
+  if (s.show_frame_time) {
+    ImGui::SameLine();
+    ImGui::AlignTextToFramePadding();
+    ImGui::Text("%.1f ms/frame", 1000.0f / std::max(ImGui::GetIO().Framerate, 1e-3f));
+  }
 }
 
 }  // namespace
