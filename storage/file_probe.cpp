@@ -29,8 +29,9 @@ FileProbe probe_file(const std::string& path) {
   // Root may write anything, so access() alone would call every file writable;
   // a file whose write bits are all cleared was marked read-only on purpose.
   p.writable = (st.st_mode & (S_IWUSR | S_IWGRP | S_IWOTH)) != 0 && ::access(path.c_str(), W_OK) == 0;
-  std::string folder = std::filesystem::path(path).parent_path().string();
-  if (folder.empty()) folder = ".";
+  const std::string parent = std::filesystem::path(path).parent_path().string();
+  // Not `folder = "."` on an empty string: GCC 12 warns falsely (-Wrestrict) on that assignment.
+  const std::string folder = parent.empty() ? std::string(".") : parent;
   p.folder_writable = ::access(folder.c_str(), W_OK) == 0;
   p.wal_present = std::filesystem::exists(path + "-wal");
 

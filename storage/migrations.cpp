@@ -24,8 +24,12 @@ void v0_to_v1(Connection& db, const std::string& author) {
   db.exec("DROP TABLE structure_v0");
 }
 
+// 1 → 2: photo image facts and full-text search; adds columns and tables
+// only, so every layout 1 row stays as it was (and is indexed for search).
+void v1_to_v2(Connection& db, const std::string& /*author*/) { db.exec(schema_v1_to_v2_sql()); }
+
 // Index k holds the step from version k.
-const std::array<Step, kSchemaVersion> kSteps = {v0_to_v1};
+const std::array<Step, kSchemaVersion> kSteps = {v0_to_v1, v1_to_v2};
 
 }  // namespace
 

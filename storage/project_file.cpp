@@ -138,7 +138,8 @@ Project Project::create(const std::string& path, const std::string& author) {
     Transaction t(db);
     db.exec("PRAGMA application_id = " + std::to_string(kApplicationId));
     db.exec(schema_v1_sql());
-    db.exec("PRAGMA user_version = " + std::to_string(kSchemaVersion));
+    db.exec("PRAGMA user_version = 1");
+    migrate(db, 1, author);  // sets user_version to kSchemaVersion
     set_meta(db, "project_id", new_uuid());
     set_meta(db, "created_at", utc_now());
     set_meta(db, "created_by", author);
@@ -185,10 +186,12 @@ Project Project::open(const std::string& path, const std::string& author, Access
   report.unclean_close = probe.wal_present || (has_meta && get_meta(db, "open_state") == "open");
   // Before migrating a file we are about to rewrite, make sure it is whole.
   report.full_check = report.unclean_close || version < kSchemaVersion;
-  reading_header(path, [&] {
-    check_integrity(db, report.full_check);
-    return 0;
-  });
+  report.check_skipped = !report.full_check && probe.size > kQuickCheckMaxBytes;
+  if (!report.check_skipped)
+    reading_header(path, [&] {
+      check_integrity(db, report.full_check);
+      return 0;
+    });
 
   if (access == Access::view) {
     if (version < kSchemaVersion)

@@ -5,19 +5,24 @@
 #include <ctime>
 #include <random>
 
+#include <sys/random.h>
+
 namespace soffit::storage {
 
 std::string new_uuid() {
-  // std::random_device reads the kernel's entropy source on Linux; a fresh
-  // draw per call keeps forked processes from repeating each other's keys.
-  std::random_device rd;
+  // The kernel's entropy source, drawn afresh per call, so that forked
+  // processes never repeat each other's keys: one getrandom() call for all
+  // 16 bytes (an import writes hundreds of keys), std::random_device if that fails.
   unsigned char b[16];
-  for (int i = 0; i < 16; i += 4) {
-    const unsigned v = rd();
-    b[i] = v & 0xff;
-    b[i + 1] = (v >> 8) & 0xff;
-    b[i + 2] = (v >> 16) & 0xff;
-    b[i + 3] = (v >> 24) & 0xff;
+  if (::getrandom(b, sizeof b, 0) != static_cast<ssize_t>(sizeof b)) {
+    std::random_device rd;
+    for (int i = 0; i < 16; i += 4) {
+      const unsigned v = rd();
+      b[i] = v & 0xff;
+      b[i + 1] = (v >> 8) & 0xff;
+      b[i + 2] = (v >> 16) & 0xff;
+      b[i + 3] = (v >> 24) & 0xff;
+    }
   }
   b[6] = static_cast<unsigned char>((b[6] & 0x0f) | 0x40);  // version 4
   b[8] = static_cast<unsigned char>((b[8] & 0x3f) | 0x80);  // RFC 4122 variant

@@ -9,6 +9,7 @@ int run_fit(int argc, char** argv);  // fit_command.cpp
 int run_import(int argc, char** argv);  // project_commands.cpp
 int run_list(int argc, char** argv);    // project_commands.cpp
 int run_show(int argc, char** argv);    // project_commands.cpp
+int run_demo(int argc, char** argv);    // demo_command.cpp
 
 namespace {
 void print_usage() {
@@ -31,6 +32,7 @@ int run(int argc, char** argv) {
   if (verb == "import") return run_import(argc - 1, argv + 1);
   if (verb == "list") return run_list(argc - 1, argv + 1);
   if (verb == "show") return run_show(argc - 1, argv + 1);
+  if (verb == "demo") return run_demo(argc - 1, argv + 1);
   if (verb == "--help" || verb == "-h" || verb == "help") {
     print_usage();
     return 0;

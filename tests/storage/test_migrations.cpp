@@ -7,6 +7,7 @@
 #include "storage/migrations.hpp"
 #include "storage/project_file.hpp"
 #include "storage/register_queries.hpp"
+#include "storage/register_search.hpp"
 #include "storage/schema.hpp"
 #include "tests/storage/temp_project_dir.hpp"
 
@@ -66,4 +67,40 @@ TEST_CASE("a migration that cannot complete leaves the earlier file exactly as i
     CHECK_MESSAGE(e.kind() == ErrorKind::invalid, e.what());
   }
   CHECK(soffit::test::read_bytes(path) == before);
+}
+
+TEST_CASE("a layout 1 project is migrated to layout 2: rows kept, photos extended, search indexes built") {
+  TempDir dir;
+  const std::string path = dir.file("v1.soffit");
+  {
+    sqlite3* db = nullptr;
+    REQUIRE(sqlite3_open(path.c_str(), &db) == SQLITE_OK);
+    const std::string sql = "PRAGMA application_id = " + std::to_string(kApplicationId) + ";" + schema_v1_sql() +
+                            "PRAGMA user_version = 1;"
+                            "INSERT INTO structure (id, ref, name, notes, created_at, modified_at, author) VALUES "
+                            "('a', 'BVDC-ST-0417', 'Sallow Ford Bridge', 'ivy on the S2 US spandrel', 't', 't', 'x');"
+                            "INSERT INTO inspection (id, structure_id, inspection_date, notes, created_at, modified_at,"
+                            " author) VALUES ('i', 'a', '2019-05-14', 'stop/go traffic management', 't', 't', 'x');"
+                            "INSERT INTO defect (id, inspection_id, defect_type, element, location_frame, frame_origin,"
+                            " geometry_kind, geometry_json, notes, created_at, modified_at, author) VALUES ('d', 'i',"
+                            " 'scour', 'pier', 'elevation', 'pier, upstream nose', 'point', '{\"points\":[[0,0]]}',"
+                            " 'footing top 0.05 m above the bed', 't', 't', 'x');"
+                            "INSERT INTO photo (id, content_hash, created_at, modified_at, author) VALUES "
+                            "('p', 'abc', 't', 't', 'x');";
+    CHECK(sqlite3_exec(db, sql.c_str(), nullptr, nullptr, nullptr) == SQLITE_OK);
+    sqlite3_close(db);
+  }
+  Project p = Project::open(path, "R. Delacroix");
+  CHECK(p.report().migrated_from == 1);
+  CHECK(p.db().query_int("PRAGMA user_version") == kSchemaVersion);
+  CHECK(p.db().query_text("SELECT ref FROM structure") == "BVDC-ST-0417");
+  CHECK(p.db().query_text("SELECT coalesce(width_px, 'none') FROM photo WHERE id = 'p'") == "none");
+  // Rows written before search existed are found (the step rebuilds the indexes).
+  const auto ivy = search_register(p.db(), "ivy");
+  REQUIRE(ivy.size() == 1);
+  CHECK(ivy[0].id == "a");
+  REQUIRE(search_register(p.db(), "stop go").size() == 1);
+  REQUIRE(search_register(p.db(), "footing").size() == 1);
+  CHECK(search_register(p.db(), "footing")[0].kind == SearchKind::defect);
+  CHECK(p.db().query_text("PRAGMA integrity_check") == "ok");
 }

@@ -97,3 +97,24 @@ TEST_CASE("new UUIDs do not repeat") {
   for (int i = 0; i < 1000; ++i) seen.insert(new_uuid());
   CHECK(seen.size() == 1000);
 }
+
+TEST_CASE("a large project closed cleanly opens without the page-by-page check; after an unclean close it gets it") {
+  TempDir dir;
+  const std::string path = dir.file("large.soffit");
+  {
+    Project p = Project::create(path, "J. Okafor");
+    p.db().exec("INSERT INTO project_meta (key, value) VALUES ('padding', zeroblob(65 * 1024 * 1024))");
+  }
+  {
+    Project p = Project::open(path, "J. Okafor");
+    CHECK(p.report().check_skipped);
+    CHECK_FALSE(p.report().full_check);
+    // Left marked open, as a killed process leaves it.
+    p.db().exec("UPDATE project_meta SET value = 'open' WHERE key = 'open_state'");
+    p.db().close();
+  }
+  Project p = Project::open(path, "J. Okafor");
+  CHECK(p.report().unclean_close);
+  CHECK(p.report().full_check);
+  CHECK_FALSE(p.report().check_skipped);
+}
