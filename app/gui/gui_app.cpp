@@ -10,13 +10,14 @@
 
 #include <algorithm>
 #include <clocale>
+#include <cstdlib>
 #include <cstdio>
 #include <string>
 
 #include "app/gui/gui_options.hpp"
 #include "app/gui/legend.hpp"
 #include "app/gui/screenshot.hpp"
-#include "app/gui/section_workspace.hpp"
+#include "app/gui/project_screens.hpp"
 #include "app/gui/ui_theme.hpp"
 
 namespace soffit::gui {
@@ -25,12 +26,18 @@ namespace {
 
 const std::string kAssets = SOFFIT_ASSETS_DIR;
 
+std::string author_name() {
+  for (const char* var : {"SOFFIT_AUTHOR", "USER", "LOGNAME"})
+    if (const char* v = std::getenv(var); v && *v) return v;
+  return "inspector";
+}
+
 struct AppState {
   Theme theme = Theme::sunlight;
   float scale = 1.0f;
   bool restyle = true;
   bool show_frame_time = false;
-  SectionWorkspace sections;
+  ProjectScreens screens{kAssets, author_name()};
 };
 
 void draw_top_bar(AppState& s) {
@@ -94,13 +101,23 @@ int run_gui(const GuiOptions& options) {
     glfwGetWindowContentScale(window, &sx, &sy);
     state.scale = std::clamp(std::max(sx, sy), 0.75f, 2.5f);
   }
-  state.sections.load_folder(kAssets + "/sheets");
-  if (options.view != "section") state.sections.show_dialog_for_screenshot(options.view);
+  if (options.demo) {
+    state.screens.open_demo();
+    if (options.view == "start") {
+      state.screens.screen = Screen::start;
+    } else if (options.view == "structure") {
+      state.screens.open_first_sections();
+      state.screens.screen = Screen::structure;
+    } else if (options.view != "register") {
+      state.screens.open_first_sections();
+      if (options.view != "section") state.screens.sections.show_dialog_for_screenshot(options.view);
+    }
+  }
 
   const bool capturing = !options.screenshot_path.empty();
   int frame = 0, settled = 0, exit_code = 0;
   while (!glfwWindowShouldClose(window)) {
-    if (capturing || state.sections.busy())
+    if (capturing || state.screens.sections.busy())
       glfwPollEvents();
     else
       glfwWaitEventsTimeout(0.5);
@@ -111,7 +128,7 @@ int run_gui(const GuiOptions& options) {
       ImGui_ImplOpenGL3_CreateFontsTexture();
       state.restyle = false;
     }
-    state.sections.poll();
+    state.screens.sections.poll();
 
     ImGui_ImplOpenGL3_NewFrame();
     ImGui_ImplGlfw_NewFrame();
@@ -122,7 +139,9 @@ int run_gui(const GuiOptions& options) {
     ImGui::Begin("##main", nullptr,
                  ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoSavedSettings);
     draw_top_bar(state);
-    state.sections.draw();
+    state.screens.draw_tabs();
+    ImGui::Separator();
+    state.screens.draw_current();
     ImGui::End();
     ImGui::Render();
 
@@ -135,7 +154,9 @@ int run_gui(const GuiOptions& options) {
     ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
 
     ++frame;
-    settled = state.sections.busy() || !state.sections.analysis() ? 0 : settled + 1;
+    const bool waiting = state.screens.screen == Screen::section &&
+                         (state.screens.sections.busy() || !state.screens.sections.analysis());
+    settled = waiting ? 0 : settled + 1;
     // Capture once the fit has arrived and a few frames have settled the layout
     // (a dialog opened for the screenshot appears a frame after it is asked for).
     if (capturing && ((frame >= options.screenshot_frames && settled >= 4) || frame > 600)) {

@@ -1,6 +1,8 @@
 #include "app/gui/gui_options.hpp"
 
+#include <algorithm>
 #include <charconv>
+#include <iterator>
 #include <string_view>
 
 namespace soffit::gui {
@@ -19,8 +21,10 @@ bool parse_gui_options(int argc, char** argv, GuiOptions& options, std::string& 
       const char* v = value();
       if (!v) return error = "--view needs a view name", false;
       options.view = v;
-      if (options.view != "section" && options.view != "keypad" && options.view != "exclude")
-        return error = "unknown view '" + options.view + "' (views: section, keypad, exclude)", false;
+      static const char* views[] = {"start", "register", "structure", "section", "keypad", "exclude"};
+      if (std::find(std::begin(views), std::end(views), options.view) == std::end(views))
+        return error = "unknown view '" + options.view +
+                       "' (views: start, register, structure, section, keypad, exclude)", false;
     } else if (arg == "--scale") {
       const char* v = value();
       const std::string_view text = v ? v : "";

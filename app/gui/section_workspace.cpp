@@ -39,6 +39,23 @@ void SectionWorkspace::load_folder(const std::string& folder) {
   if (!entries_.empty()) select(0);
 }
 
+void SectionWorkspace::load_sheets(std::vector<std::pair<std::string, SurveySheet>> sheets) {
+  if (pending_.valid()) pending_.wait();  // a fit of the old sections may still be running
+  pending_ = {};
+  refit_wanted_ = false;
+  entries_.clear();
+  analysis_.reset();
+  for (auto& [label, sheet] : sheets) {
+    Entry entry;
+    entry.label = label;
+    entry.path = sheet.source;
+    entry.sheet = std::move(sheet);
+    entries_.push_back(std::move(entry));
+  }
+  selected_ = 0;
+  if (!entries_.empty()) select(0);
+}
+
 void SectionWorkspace::select(size_t index) {
   if (index >= entries_.size()) return;
   selected_ = index;
@@ -108,7 +125,8 @@ void SectionWorkspace::draw_edit_bar() {
   if (e.history.can_undo()) {
     ImGui::SameLine();
     ImGui::AlignTextToFramePadding();
-    ImGui::TextDisabled("last: %s", e.history.next_undo_label().c_str());
+    // Honest about scope: these edits are not yet written to the project file.
+    ImGui::TextDisabled("last: %s (kept for this session only)", e.history.next_undo_label().c_str());
   }
 }
 

@@ -17,6 +17,9 @@ class SectionWorkspace {
  public:
   // Loads every sheet in `folder` (unreadable ones are listed with their error).
   void load_folder(const std::string& folder);
+  // Shows these sections (label, sheet), replacing what was shown.
+  void load_sheets(std::vector<std::pair<std::string, SurveySheet>> sheets);
+  bool empty() const { return entries_.empty(); }
   void select(size_t index);
   // Collects a finished fit, if any. Call once per frame, on the UI thread.
   void poll();

@@ -1,0 +1,250 @@
+#include "app/gui/project_screens.hpp"
+
+#include <imgui.h>
+
+#include <filesystem>
+#include <fstream>
+
+#include "app/gui/ui_probe.hpp"
+#include "app/gui/ui_theme.hpp"
+#include "exports/fit_report_json.hpp"
+#include "storage/storage_error.hpp"
+
+namespace soffit::gui {
+
+namespace {
+
+constexpr size_t kRecentCount = 8;
+
+std::string recent_file() { return app::app_data_dir() + "/recent-projects.txt"; }
+
+bool big_button(const char* label, const std::string& probe_name) {
+  const bool pressed = ImGui::Button(label, ImVec2(ImGui::GetFontSize() * 18, ImGui::GetFrameHeight() * 1.4f));
+  probe(probe_name);
+  return pressed;
+}
+
+}  // namespace
+
+ProjectScreens::ProjectScreens(std::string assets_dir, std::string author)
+    : assets_dir_(std::move(assets_dir)), author_(std::move(author)) {
+  std::ifstream in(recent_file());
+  for (std::string line; std::getline(in, line) && recent_.size() < kRecentCount;)
+    if (!line.empty()) recent_.push_back(line);
+}
+
+void ProjectScreens::remember(const std::string& path) {
+  std::erase(recent_, path);
+  recent_.insert(recent_.begin(), path);
+  if (recent_.size() > kRecentCount) recent_.resize(kRecentCount);
+  std::error_code ec;
+  std::filesystem::create_directories(app::app_data_dir(), ec);
+  std::ofstream out(recent_file());
+  for (const std::string& p : recent_) out << p << "\n";
+}
+
+void ProjectScreens::open_path(const std::string& path, bool create) {
+  try {
+    if (create) storage::Project::create(path, author_).close();
+    session_.open(path, author_);
+    structures_ = session_.structures();
+    hits_.clear();
+    detail_.reset();
+    message_.clear();
+    remember(path);
+    screen = Screen::register_list;
+  } catch (const std::exception& e) {
+    message_ = e.what();  // the file is left as it was: storage never overwrites on a failed open
+  }
+}
+
+void ProjectScreens::open_demo() {
+  const std::string path = app::app_data_dir() + "/sallow-ford-demo.soffit";
+  try {
+    session_.open_demo(path, assets_dir_ + "/sheets", author_);
+    structures_ = session_.structures();
+    message_.clear();
+    remember(path);
+    screen = Screen::register_list;
+  } catch (const std::exception& e) {
+    message_ = e.what();
+  }
+}
+
+void ProjectScreens::open_first_sections() {
+  if (structures_.empty()) return;
+  show_structure(structures_.front().structure.fields.ref);
+  if (detail_ && !detail_->inspections.empty()) open_sections(detail_->inspections.front());
+}
+
+void ProjectScreens::show_structure(const std::string& ref) {
+  detail_ = session_.structure(ref);
+  if (detail_) screen = Screen::structure;
+}
+
+void ProjectScreens::open_sections(const storage::InspectionRecord& visit) {
+  std::vector<std::pair<std::string, SurveySheet>> sheets;
+  for (const storage::SectionRecord& s : visit.sections) {
+    try {
+      sheets.emplace_back(visit.date + "  " + s.span_label + " " + s.label, session_.section_sheet(s.id));
+    } catch (const std::exception& e) {
+      message_ = e.what();
+    }
+  }
+  sections.load_sheets(std::move(sheets));
+  screen = Screen::section;
+}
+
+void ProjectScreens::draw_tabs() {
+  struct Tab {
+    const char* label;
+    Screen screen;
+    bool enabled;
+  };
+  const Tab tabs[] = {{"Start", Screen::start, true},
+                      {"Register", Screen::register_list, session_.is_open()},
+                      {"Structure", Screen::structure, detail_.has_value()},
+                      {"Sections", Screen::section, !sections.empty()}};
+  for (const Tab& t : tabs) {
+    ImGui::SameLine();
+    ImGui::BeginDisabled(!t.enabled);
+    const bool current = screen == t.screen;
+    if (current) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyle().Colors[ImGuiCol_ButtonActive]);
+    if (ImGui::Button(t.label)) screen = t.screen;
+    probe(std::string("tab:") + t.label);
+    if (current) ImGui::PopStyleColor();
+    ImGui::EndDisabled();
+  }
+}
+
+void ProjectScreens::draw_current() {
+  switch (screen) {
+    case Screen::start: draw_start(); break;
+    case Screen::register_list: draw_register(); break;
+    case Screen::structure: draw_structure(); break;
+    case Screen::section: sections.draw(); break;
+  }
+}
+
+void ProjectScreens::draw_start() {
+  const Palette& c = palette();
+  ImGui::TextWrapped(
+      "Soffit records the survey of a masonry arch bridge: profiles, rings, fill, defects and photographs, "
+      "offline, in one project file.");
+  ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(c.caution));
+  ImGui::TextWrapped("%s", kSurveyDataCaution);
+  ImGui::PopStyleColor();
+  ImGui::Spacing();
+  if (big_button("Open the demo project", "start:demo")) open_demo();
+  ImGui::Spacing();
+  ImGui::TextUnformatted("Project file (.soffit):");
+  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 28);
+  ImGui::InputText("##path", path_, sizeof path_);
+  ImGui::SameLine();
+  if (ImGui::Button("Open")) open_path(path_, false);
+  ImGui::SameLine();
+  if (ImGui::Button("Create new")) open_path(path_, true);
+  if (!message_.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(c.residual_below));
+    ImGui::TextWrapped("%s", message_.c_str());
+    ImGui::PopStyleColor();
+  }
+  if (!recent_.empty()) {
+    ImGui::Spacing();
+    ImGui::TextUnformatted("Recent projects");
+    for (size_t i = 0; i < recent_.size(); ++i) {
+      ImGui::PushID(static_cast<int>(i));
+      if (ImGui::Selectable(recent_[i].c_str(), false, 0, ImVec2(0, ImGui::GetFrameHeight())))
+        open_path(recent_[i], false);
+      ImGui::PopID();
+    }
+  }
+}
+
+void ProjectScreens::draw_register() {
+  ImGui::Text("Register: %s", session_.path().c_str());
+  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 20);
+  const bool enter = ImGui::InputText("##search", search_, sizeof search_, ImGuiInputTextFlags_EnterReturnsTrue);
+  ImGui::SameLine();
+  if (ImGui::Button("Search") || enter) hits_ = search_[0] ? session_.search(search_) : std::vector<storage::SearchHit>{};
+  ImGui::SameLine();
+  if (ImGui::Button("Clear")) {
+    search_[0] = '\0';
+    hits_.clear();
+  }
+  if (!hits_.empty()) {
+    ImGui::Text("%zu found", hits_.size());
+    for (size_t i = 0; i < hits_.size(); ++i) {
+      const auto& h = hits_[i];
+      ImGui::PushID(static_cast<int>(i));
+      const std::string line = std::string(storage::search_kind_name(h.kind)) + "  " + h.structure_ref + "  " +
+                               h.title + "  " + h.snippet;
+      if (ImGui::Selectable(line.c_str(), false, 0, ImVec2(0, ImGui::GetFrameHeight())))
+        show_structure(h.structure_ref);
+      ImGui::PopID();
+    }
+    ImGui::Separator();
+  }
+  if (!ImGui::BeginTable("structures", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
+  ImGui::TableSetupColumn("Reference");
+  ImGui::TableSetupColumn("Name");
+  ImGui::TableSetupColumn("Spans");
+  ImGui::TableSetupColumn("Visits");
+  ImGui::TableSetupColumn("Sections");
+  ImGui::TableHeadersRow();
+  for (size_t i = 0; i < structures_.size(); ++i) {
+    const auto& s = structures_[i];
+    ImGui::PushID(static_cast<int>(i));
+    ImGui::TableNextRow();
+    ImGui::TableNextColumn();
+    const bool open = ImGui::Selectable(s.structure.fields.ref.c_str(), false, ImGuiSelectableFlags_SpanAllColumns,
+                                        ImVec2(0, ImGui::GetFrameHeight()));
+    probe("structure:" + s.structure.fields.ref);
+    ImGui::TableNextColumn();
+    ImGui::TextUnformatted(s.structure.fields.name.c_str());
+    ImGui::TableNextColumn();
+    ImGui::Text("%d", s.span_count);
+    ImGui::TableNextColumn();
+    ImGui::Text("%d", s.inspection_count);
+    ImGui::TableNextColumn();
+    ImGui::Text("%d", s.section_count);
+    ImGui::PopID();
+    if (open) show_structure(s.structure.fields.ref);
+  }
+  ImGui::EndTable();
+}
+
+void ProjectScreens::draw_structure() {
+  if (!detail_) return;
+  const auto& f = detail_->structure.fields;
+  ImGui::Text("%s  %s", f.ref.c_str(), f.name.c_str());
+  if (!f.carries.empty() || !f.crosses.empty())
+    ImGui::TextWrapped("Carries %s over %s", f.carries.c_str(), f.crosses.c_str());
+  if (f.latitude_deg && f.longitude_deg)
+    ImGui::Text("Location %.5f, %.5f%s", *f.latitude_deg, *f.longitude_deg,
+                f.location_fictitious ? "  (fictitious)" : "");
+  if (!f.notes.empty()) ImGui::TextWrapped("%s", f.notes.c_str());
+  std::string spans = "Spans:";
+  for (const auto& s : detail_->spans) spans += " " + (s.label.empty() ? std::to_string(s.index) : s.label);
+  ImGui::TextUnformatted(spans.c_str());
+  ImGui::Separator();
+  ImGui::TextUnformatted("Visits");
+  for (size_t i = 0; i < detail_->inspections.size(); ++i) {
+    const auto& v = detail_->inspections[i];
+    ImGui::PushID(static_cast<int>(i));
+    ImGui::Text("%s  %s  %s  revision %d  (%s)", v.date.c_str(), v.kind.c_str(), v.inspector.c_str(), v.revision,
+                v.status.c_str());
+    ImGui::SameLine();
+    ImGui::BeginDisabled(v.sections.empty());
+    const bool open = ImGui::Button("Open sections");
+    probe("visit:" + v.date);
+    ImGui::EndDisabled();
+    for (const auto& s : v.sections)
+      ImGui::BulletText("%s %s: %s, %d readings (%d excluded)", s.span_label.c_str(), s.label.c_str(),
+                        s.method.c_str(), s.reading_count, s.excluded_count);
+    ImGui::PopID();
+    if (open) open_sections(v);
+  }
+}
+
+}  // namespace soffit::gui

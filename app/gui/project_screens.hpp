@@ -1,0 +1,50 @@
+#pragma once
+// The screens around a project: start (open, create, recent, demo), the
+// register of structures with search, and one structure with its spans and
+// timeline of visits. Choosing a visit's sections hands them to the section view.
+#include <string>
+#include <vector>
+
+#include "app/gui/section_workspace.hpp"
+#include "app/model/project_session.hpp"
+
+namespace soffit::gui {
+
+enum class Screen { start, register_list, structure, section };
+
+class ProjectScreens {
+ public:
+  ProjectScreens(std::string assets_dir, std::string author);
+
+  // Opens (writing it first if needed) the demo project and shows the register.
+  void open_demo();
+  // Opens the first visit of the first structure in the section view.
+  void open_first_sections();
+
+  Screen screen = Screen::start;
+  SectionWorkspace sections;
+
+  void draw_tabs();
+  void draw_current();
+
+ private:
+  void open_path(const std::string& path, bool create);
+  void draw_start();
+  void draw_register();
+  void draw_structure();
+  void show_structure(const std::string& ref);
+  void open_sections(const storage::InspectionRecord& visit);
+  void remember(const std::string& path);
+
+  std::string assets_dir_, author_;
+  app::ProjectSession session_;
+  std::vector<std::string> recent_;
+  std::string message_;  // last error for the person, shown on the start screen
+  char path_[512] = {};
+  char search_[128] = {};
+  std::vector<storage::StructureSummary> structures_;
+  std::vector<storage::SearchHit> hits_;
+  std::optional<storage::StructureDetail> detail_;
+};
+
+}  // namespace soffit::gui

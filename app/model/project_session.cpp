@@ -1,0 +1,56 @@
+#include "app/model/project_session.hpp"
+
+#include <cstdlib>
+#include <filesystem>
+
+#include "storage/demo_project.hpp"
+#include "storage/register_queries.hpp"
+#include "storage/sheet_export.hpp"
+
+namespace soffit::app {
+
+void ProjectSession::open(const std::string& path, const std::string& author) {
+  close();
+  project_.emplace(storage::Project::open(path, author));
+}
+
+void ProjectSession::open_demo(const std::string& path, const std::string& sheets_dir, const std::string& author) {
+  close();
+  std::error_code ec;
+  if (!std::filesystem::exists(path, ec)) {
+    std::filesystem::create_directories(std::filesystem::path(path).parent_path(), ec);
+    storage::write_demo_project(path, sheets_dir, author);
+  }
+  project_.emplace(storage::Project::open(path, author));
+}
+
+void ProjectSession::close() {
+  if (project_) project_->close();
+  project_.reset();
+}
+
+std::vector<storage::StructureSummary> ProjectSession::structures() {
+  return project_ ? storage::list_structures(project_->db()) : std::vector<storage::StructureSummary>{};
+}
+
+std::vector<storage::SearchHit> ProjectSession::search(const std::string& text) {
+  return project_ ? storage::search_register(project_->db(), text) : std::vector<storage::SearchHit>{};
+}
+
+std::optional<storage::StructureDetail> ProjectSession::structure(const std::string& ref) {
+  return project_ ? storage::structure_detail(project_->db(), ref) : std::nullopt;
+}
+
+SurveySheet ProjectSession::section_sheet(const std::string& section_id) {
+  return storage::load_section_sheet(project_->db(), section_id);
+}
+
+std::string app_data_dir() {
+  namespace fs = std::filesystem;
+  if (const char* xdg = std::getenv("XDG_DATA_HOME"); xdg && *xdg) return (fs::path(xdg) / "soffit").string();
+  if (const char* home = std::getenv("HOME"); home && *home)
+    return (fs::path(home) / ".local" / "share" / "soffit").string();
+  return (fs::temp_directory_path() / "soffit").string();
+}
+
+}  // namespace soffit::app

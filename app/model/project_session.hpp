@@ -1,0 +1,41 @@
+#pragma once
+// The project the app has open, seen from the screens: the register, one
+// structure's spans and visits, a section's sheet. No UI here, so the screens'
+// data can be tested headless; every call goes through the storage library.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "geometry/sheet/survey_sheet.hpp"
+#include "storage/project_file.hpp"
+#include "storage/register_records.hpp"
+#include "storage/register_search.hpp"
+
+namespace soffit::app {
+
+class ProjectSession {
+ public:
+  // Opens an existing project; throws storage::StorageError with a message
+  // for the person (not a SQLite file, newer version, damaged, locked…).
+  void open(const std::string& path, const std::string& author);
+  // Opens the demo project at `path`, writing it first if nothing is there.
+  void open_demo(const std::string& path, const std::string& sheets_dir, const std::string& author);
+  void close();
+
+  bool is_open() const { return project_.has_value(); }
+  std::string path() const { return project_ ? project_->path() : std::string(); }
+
+  std::vector<storage::StructureSummary> structures();
+  std::vector<storage::SearchHit> search(const std::string& text);
+  std::optional<storage::StructureDetail> structure(const std::string& ref);
+  SurveySheet section_sheet(const std::string& section_id);
+
+ private:
+  std::optional<storage::Project> project_;
+};
+
+// Where the app keeps its own files (the demo project, the recent list):
+// $XDG_DATA_HOME/soffit, else ~/.local/share/soffit, else the temp folder.
+std::string app_data_dir();
+
+}  // namespace soffit::app
