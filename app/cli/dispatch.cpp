@@ -9,7 +9,8 @@ int run_fit(int argc, char** argv);  // fit_command.cpp
 int run_import(int argc, char** argv);  // project_commands.cpp
 int run_list(int argc, char** argv);    // project_commands.cpp
 int run_show(int argc, char** argv);    // project_commands.cpp
-int run_demo(int argc, char** argv);    // demo_command.cpp
+int run_demo(int argc, char** argv);
+int run_export_section(int argc, char** argv);  // export_section_command.cpp    // demo_command.cpp
 
 namespace {
 void print_usage() {
@@ -33,6 +34,7 @@ int run(int argc, char** argv) {
   if (verb == "list") return run_list(argc - 1, argv + 1);
   if (verb == "show") return run_show(argc - 1, argv + 1);
   if (verb == "demo") return run_demo(argc - 1, argv + 1);
+  if (verb == "export-section") return run_export_section(argc - 1, argv + 1);
   if (verb == "--help" || verb == "-h" || verb == "help") {
     print_usage();
     return 0;
