@@ -1,20 +1,37 @@
 // `soffit import`, `soffit list`, `soffit show`: the project file from the
 // command line. Exit codes as dispatch.hpp: 0 ok, 1 internal, 2 bad input.
+// `import` also reads spreadsheet exports through a column mapping
+// (--map/--map-file and settings; SHEET_FORMAT.md "Spreadsheet exports").
+#include <array>
 #include <cstdio>
 #include <cstdlib>
 #include <filesystem>
 #include <iostream>
 #include <nlohmann/json.hpp>
 #include <string>
+#include <vector>
 
 #include "app/cli/option_parsing.hpp"
 #include "geometry/core/input_error.hpp"
+#include "geometry/sheet/column_mapping.hpp"
+#include "geometry/sheet/mapped_sheet_reader.hpp"
 #include "geometry/sheet/sheet_reader.hpp"
+#include "storage/inspection_observations.hpp"
 #include "storage/project_file.hpp"
 #include "storage/register_queries.hpp"
 #include "storage/sheet_import.hpp"
 
 namespace soffit::cli {
+
+// Rows carry an author; on the command line it is the login name unless
+// SOFFIT_AUTHOR says otherwise. (Also used by search_command.cpp.)
+std::string author_name() {
+  for (const char* var : {"SOFFIT_AUTHOR", "USER", "LOGNAME"}) {
+    if (const char* v = std::getenv(var); v && *v) return v;
+  }
+  return "unknown";
+}
+
 namespace {
 
 using nlohmann::json;
@@ -22,15 +39,6 @@ using storage::Access;
 using storage::ErrorKind;
 using storage::Project;
 using storage::StorageError;
-
-// Rows carry an author; on the command line it is the login name unless
-// SOFFIT_AUTHOR says otherwise.
-std::string author_name() {
-  for (const char* var : {"SOFFIT_AUTHOR", "USER", "LOGNAME"}) {
-    if (const char* v = std::getenv(var); v && *v) return v;
-  }
-  return "unknown";
-}
 
 bool is_iso_date(const std::string& d) {
   if (d.size() != 10 || d[4] != '-' || d[7] != '-') return false;
@@ -68,12 +76,66 @@ json section_json(const storage::SectionRecord& s) {
   return j;
 }
 
+json optional_number(const std::optional<double>& v) { return v ? json(*v) : json(nullptr); }
+
+json observations_json(const storage::InspectionObservations& o) {
+  json j = {{"ring_counts", json::array()}, {"fill_depths", json::array()}, {"defects", json::array()}};
+  for (const auto& r : o.ring_counts)
+    j["ring_counts"].push_back({{"span", r.span_label}, {"face", r.face}, {"position", r.position},
+                                {"rings", r.rings}, {"unit_depth_mm", optional_number(r.unit_depth_mm)},
+                                {"thickness_mm", optional_number(r.thickness_mm)}, {"confidence", r.confidence}});
+  for (const auto& f : o.fill_depths)
+    j["fill_depths"].push_back({{"span", f.span_label}, {"chainage_m", f.chainage_m}, {"method", f.method},
+                                {"depth_m", f.depth_m}, {"uncertainty_m", optional_number(f.uncertainty_m)}});
+  for (const auto& d : o.defects)
+    j["defects"].push_back({{"ref", d.ref}, {"span", d.span_label}, {"type", d.defect_type},
+                            {"element", d.element}, {"severity_scale", d.severity_scale},
+                            {"severity", d.severity ? json(*d.severity) : json(nullptr)},
+                            {"length_m", optional_number(d.length_m)}, {"width_mm", optional_number(d.width_mm)},
+                            {"area_m2", optional_number(d.area_m2)}, {"photos", d.photo_count}});
+  return j;
+}
+
+// Numbers an inspector reads off a page: thickness in mm, depths in m, ± where known.
+void print_observations(const storage::InspectionObservations& o) {
+  if (!o.ring_counts.empty()) std::printf("  ring counts: %zu\n", o.ring_counts.size());
+  for (const auto& r : o.ring_counts) {
+    std::printf("    %s %s %-14s %d rings", r.span_label.c_str(), r.face.c_str(), r.position.c_str(), r.rings);
+    if (r.thickness_mm) std::printf("  thickness %.0f mm", *r.thickness_mm);
+    if (!r.confidence.empty()) std::printf("  (%s confidence)", r.confidence.c_str());
+    std::printf("\n");
+  }
+  if (!o.fill_depths.empty()) std::printf("  fill depths: %zu\n", o.fill_depths.size());
+  for (const auto& f : o.fill_depths) {
+    std::printf("    %s x %.2f m  %-9s %.3f m", f.span_label.c_str(), f.chainage_m, f.method.c_str(), f.depth_m);
+    if (f.uncertainty_m) std::printf(" ± %.3f m", *f.uncertainty_m);
+    std::printf("\n");
+  }
+  int photos = 0;
+  for (const auto& d : o.defects) photos += d.photo_count;
+  if (!o.defects.empty()) std::printf("  defects: %zu (%d photos)\n", o.defects.size(), photos);
+  for (const auto& d : o.defects) {
+    std::printf("    %-4s %-3s %-20s %s", d.ref.c_str(), d.span_label.c_str(), d.defect_type.c_str(),
+                d.element.c_str());
+    if (d.severity) std::printf("  severity %lld (%s)", *d.severity, d.severity_scale.c_str());
+    if (d.width_mm) std::printf("  width %.1f mm", *d.width_mm);
+    if (d.length_m) std::printf("  length %.2f m", *d.length_m);
+    if (d.area_m2) std::printf("  area %.2f m2", *d.area_m2);
+    std::printf("  photos %d\n", d.photo_count);
+  }
+}
+
 }  // namespace
 
 int run_import(int argc, char** argv) {
   constexpr const char* kSynopsis =
-      "import PROJECT SHEET --structure REF [--span N] [--date YYYY-MM-DD] [--section NAME]";
-  std::string project_path, sheet_path, structure, date, section;
+      "import PROJECT SHEET --structure REF [--span N] [--date YYYY-MM-DD] [--section NAME]\n"
+      "       [--map TARGET=SOURCE,... | --map-file FILE] [--method offsets|polar|points]\n"
+      "       [--datum-rl-m V] [--z-origin-rl-m V] [--sigma-mm S] [--set KEY=VALUE]...";
+  std::string project_path, sheet_path, structure, date, section, map_file;
+  std::vector<std::string> map_specs;
+  // Settings for a mapped export, in the order given: (option, key, value).
+  std::vector<std::array<std::string, 3>> settings;
   int span = 0;
   try {
     OptionCursor args(argc, argv, "import");
@@ -83,6 +145,14 @@ int run_import(int argc, char** argv) {
       else if (arg == "--span") span = static_cast<int>(args.integer(arg, 1, 999));
       else if (arg == "--date") date = args.value(arg);
       else if (arg == "--section") section = args.value(arg);
+      else if (arg == "--map") map_specs.emplace_back(args.value(arg));
+      else if (arg == "--map-file") map_file = args.value(arg);
+      else if (arg == "--method") settings.push_back({"--method", "method", std::string(args.value(arg))});
+      else if (arg == "--datum-rl-m") settings.push_back({"--datum-rl-m", "datum_rl_m", std::string(args.value(arg))});
+      else if (arg == "--z-origin-rl-m")
+        settings.push_back({"--z-origin-rl-m", "z_origin_rl_m", std::string(args.value(arg))});
+      else if (arg == "--sigma-mm") settings.push_back({"--sigma-mm", "sigma_mm", std::string(args.value(arg))});
+      else if (arg == "--set") settings.push_back({"--set", "", std::string(args.value(arg))});
       else if (!arg.empty() && arg[0] == '-') throw UsageError("unknown option '" + std::string(arg) + "'");
       else if (project_path.empty()) project_path = arg;
       else if (sheet_path.empty()) sheet_path = arg;
@@ -91,13 +161,27 @@ int run_import(int argc, char** argv) {
     if (project_path.empty() || sheet_path.empty()) throw UsageError("PROJECT and SHEET are both needed");
     if (structure.empty()) throw UsageError("--structure REF is needed (the owner's reference)");
     if (!date.empty() && !is_iso_date(date)) throw UsageError("--date must be YYYY-MM-DD, not '" + date + "'");
+    if (!settings.empty() && map_specs.empty() && map_file.empty())
+      throw UsageError(settings.front()[0] + " is for a spreadsheet export read with --map or --map-file; "
+                       "a Soffit sheet states it in its own metadata lines");
   } catch (const UsageError& e) {
     return usage("import", e.what(), kSynopsis);
   }
 
   SurveySheet sheet;
   try {
-    sheet = read_sheet_file(sheet_path, {});
+    if (map_specs.empty() && map_file.empty()) {
+      sheet = read_sheet_file(sheet_path, {});
+    } else {
+      // The file first; --map adds columns to it and options override its settings.
+      ColumnMapping mapping = map_file.empty() ? ColumnMapping{} : read_column_map_file(map_file);
+      for (const auto& spec : map_specs) add_column_map_spec(mapping, spec, "--map");
+      for (const auto& [option, key, value] : settings) {
+        if (key.empty()) add_setting_spec(mapping, value, option);
+        else mapping.set(key, value, option);
+      }
+      sheet = read_mapped_sheet_file(sheet_path, mapping, {});
+    }
   } catch (const InputError& e) {
     std::fprintf(stderr, "soffit import: %s\n", e.what());
     return 2;
@@ -214,6 +298,7 @@ int run_show(int argc, char** argv) {
         json ij = {{"date", i.date}, {"status", i.status}, {"revision", i.revision},
                    {"inspector", i.inspector}, {"sections", json::array()}};
         for (const auto& s : i.sections) ij["sections"].push_back(section_json(s));
+        ij.update(observations_json(storage::inspection_observations(project.db(), i.id)));
         j["inspections"].push_back(ij);
       }
       std::cout << j.dump(2) << "\n";
@@ -225,6 +310,7 @@ int run_show(int argc, char** argv) {
         for (const auto& s : i.sections)
           std::printf("  %s %-4s %-8s %2d readings (%d excluded)\n", s.span_label.c_str(), s.label.c_str(),
                       s.method.c_str(), s.reading_count, s.excluded_count);
+        print_observations(storage::inspection_observations(project.db(), i.id));
       }
     }
     return 0;
