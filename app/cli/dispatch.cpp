@@ -16,7 +16,8 @@ int run_export_section(int argc, char** argv);  // export_section_command.cpp
 namespace {
 void print_usage() {
   std::fputs(
-      "usage: soffit VERB ...   (each verb prints its options on a usage error)\n"
+      "usage: soffit [--demo] [--scale S]      open the field app (no verb)\n"
+      "       soffit VERB ...   (each verb prints its options on a usage error)\n"
       "  fit FILE [--shape NAME|auto] [--sigma-mm S] [--summary] ...  fit one section's sheet, print JSON\n"
       "  export-section SHEET --out DIR [--format csv,svg,geo] ...    write a section's analysis files\n"
       "  import PROJECT SHEET --structure REF [--map ...] ...         add a sheet or mapped export to a project\n"
