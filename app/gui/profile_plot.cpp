@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <vector>
 
 #include "app/gui/ui_theme.hpp"
 #include "geometry/shapes/outline.hpp"
@@ -13,6 +14,12 @@ namespace soffit::gui {
 
 namespace {
 constexpr float kResidualExaggeration = 50.0f;  // 1 mm drawn as 50 mm
+// Above this many readings (a scan slice) points are decimated for drawing,
+// never for fitting: one mark per 2-pixel cell, and at most kMaxDrawnMarks
+// marks so one draw list stays far below ImGui 1.86's 65,535-vertex limit.
+constexpr size_t kDenseReadings = 1500;
+constexpr size_t kMaxDrawnMarks = 8000;
+constexpr float kCellPixels = 2.0f;
 }
 
 void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis, float height) {
@@ -53,9 +60,25 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
     draw->AddLine(at(curve[i - 1].x, curve[i - 1].z), at(curve[i].x, curve[i].z), c.fitted_curve, 3.0f);
 
   const float dot = ImGui::GetFontSize() * 0.28f;
+  const bool dense = readings.size() > kDenseReadings;
+  const int cells_x = static_cast<int>(width / kCellPixels) + 1, cells_y = static_cast<int>(height / kCellPixels) + 1;
+  std::vector<bool> occupied(dense ? static_cast<size_t>(cells_x) * static_cast<size_t>(cells_y) : 0);
+  size_t drawn = 0;
   for (size_t i = 0; i < readings.size(); ++i) {
     const Reading& r = readings[i];
     const ImVec2 p = at(r.x, r.z);
+    if (dense) {
+      const int cx = static_cast<int>((p.x - origin.x) / kCellPixels), cy = static_cast<int>((p.y - origin.y) / kCellPixels);
+      if (cx < 0 || cy < 0 || cx >= cells_x || cy >= cells_y) continue;
+      const size_t cell = static_cast<size_t>(cy) * static_cast<size_t>(cells_x) + static_cast<size_t>(cx);
+      if (occupied[cell] || drawn >= kMaxDrawnMarks) continue;
+      occupied[cell] = true;
+      ++drawn;
+      const unsigned int colour = fit.used[i] ? c.reading : c.excluded;
+      draw->AddRectFilled(ImVec2(p.x - 1.5f, p.y - 1.5f), ImVec2(p.x + 1.5f, p.y + 1.5f), colour);
+      continue;
+    }
+    ++drawn;
     if (!fit.used[i]) {
       draw->AddCircle(p, dot, c.excluded, 0, 2.0f);  // hollow: not used in the fit
       continue;
@@ -74,8 +97,12 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
     draw->AddLine(p, tip, res < 0 ? c.residual_below : c.residual_above, 3.0f);
     draw->AddCircleFilled(p, dot, c.reading);
   }
-  char label[96];
-  std::snprintf(label, sizeof label, "grid 0.5 m; residual bars drawn x%.0f", kResidualExaggeration);
+  char label[160];
+  if (dense)
+    std::snprintf(label, sizeof label, "grid 0.5 m; %zu of %zu readings drawn (all are fitted)", drawn,
+                  readings.size());
+  else
+    std::snprintf(label, sizeof label, "grid 0.5 m; residual bars drawn x%.0f", kResidualExaggeration);
   draw->AddText(ImVec2(origin.x + pad * 0.5f, origin.y + pad * 0.3f), c.faint_ink, label);
   ImGui::Dummy(ImVec2(width, height));
 }

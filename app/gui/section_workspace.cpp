@@ -134,86 +134,117 @@ void SectionWorkspace::draw_readings_table() {
   const Palette& c = palette();
   Entry& e = entries_[selected_];
   const ShapeFit& fit = *analysis_->fit;
-  if (!ImGui::BeginTable("readings", 6, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
-  ImGui::TableSetupColumn("#");
-  ImGui::TableSetupColumn("x m");
-  ImGui::TableSetupColumn("z m");
-  ImGui::TableSetupColumn("off curve mm");
-  ImGui::TableSetupColumn("state");
-  ImGui::TableSetupColumn("action");
-  ImGui::TableHeadersRow();
   const Readings& readings = e.sheet->readings;
-  for (size_t i = 0; i < readings.size() && i < fit.residuals.size(); ++i) {
-    const Reading& r = readings[i];
-    ImGui::PushID(static_cast<int>(i));
-    ImGui::TableNextRow();
-    ImGui::TableNextColumn();
-    ImGui::Text("%zu", i + 1);
-    ImGui::TableNextColumn();
-    ImGui::Text("%.3f", r.x);
-    ImGui::TableNextColumn();
-    // Tap the height to correct a misread value on the keypad (recorded, undoable).
-    char z_label[32];
-    std::snprintf(z_label, sizeof z_label, "%.3f", r.z);
-    const bool middle = i == readings.size() / 2;
-    const bool correct = ImGui::Button(z_label) || (middle && screenshot_dialog_ == "keypad");
-    probe("z:" + std::to_string(i + 1));
-    if (correct) {
-      correcting_ = i;
-      keypad_.begin("Height z (m) of reading " + std::to_string(i + 1), r.z, 3);
-      ImGui::OpenPopup(keypad_.popup_id().c_str());
+  const size_t rows = std::min(readings.size(), fit.residuals.size());
+  // A dialog asked for by a screenshot opens on the middle reading.
+  if (screenshot_dialog_ == "keypad" && rows > 0) request_keypad(rows / 2);
+  if (screenshot_dialog_ == "exclude" && rows > 0) request_exclude(rows / 2);
+  screenshot_dialog_.clear();
+
+  if (ImGui::BeginTable("readings", 6, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) {
+    ImGui::TableSetupColumn("#");
+    ImGui::TableSetupColumn("x m");
+    ImGui::TableSetupColumn("z m");
+    ImGui::TableSetupColumn("off curve mm");
+    ImGui::TableSetupColumn("state");
+    ImGui::TableSetupColumn("action");
+    ImGui::TableHeadersRow();
+    // Only the rows on screen are built: a scan slice has 10⁵ readings.
+    ImGuiListClipper clipper;
+    clipper.Begin(static_cast<int>(rows));
+    while (clipper.Step()) {
+      for (int row = clipper.DisplayStart; row < clipper.DisplayEnd; ++row) {
+        const size_t i = static_cast<size_t>(row);
+        const Reading& r = readings[i];
+        ImGui::PushID(row);
+        ImGui::TableNextRow();
+        ImGui::TableNextColumn();
+        ImGui::Text("%zu", i + 1);
+        ImGui::TableNextColumn();
+        ImGui::Text("%.3f", r.x);
+        ImGui::TableNextColumn();
+        // Tap the height to correct a misread value on the keypad (recorded, undoable).
+        char z_label[32];
+        std::snprintf(z_label, sizeof z_label, "%.3f", r.z);
+        const bool correct = ImGui::Button(z_label);
+        probe("z:" + std::to_string(i + 1));
+        if (correct) request_keypad(i);
+        ImGui::TableNextColumn();
+        // Beyond 2σ is shown in the departure colours: out of tolerance, look again.
+        const double res = fit.residuals[i];
+        const bool beyond = std::abs(res) > 2.0 * fit.sigmas[i];
+        if (beyond)
+          ImGui::PushStyleColor(ImGuiCol_Text,
+                                ImGui::ColorConvertU32ToFloat4(res < 0 ? c.residual_below : c.residual_above));
+        ImGui::Text("%+.1f%s", res * 1000, beyond ? "  (> 2 sigma)" : "");
+        if (beyond) ImGui::PopStyleColor();
+        ImGui::TableNextColumn();
+        if (r.excluded)
+          ImGui::TextWrapped("excluded: %s", r.exclusion_reason.c_str());
+        else if (r.check)
+          ImGui::TextUnformatted("closing check");
+        else
+          ImGui::TextUnformatted("used");
+        ImGui::TableNextColumn();
+        if (!r.check) {
+          if (r.excluded) {
+            const bool pressed = ImGui::Button("Use again");
+            probe("use again:" + std::to_string(i + 1));
+            if (pressed) {
+              app::ReadingEdit edit{i, r, r, "use reading " + std::to_string(i + 1) + " again"};
+              edit.after.excluded = false;
+              edit.after.exclusion_reason.clear();
+              apply_edit(std::move(edit));
+            }
+          } else {
+            const bool pressed = ImGui::Button("Exclude...");
+            probe("exclude:" + std::to_string(i + 1));
+            if (pressed) request_exclude(i);
+          }
+        }
+        ImGui::PopID();
+      }
     }
-    if (correcting_ == i) {
-      if (const auto value = keypad_.draw()) {
+    ImGui::EndTable();
+  }
+
+  // Dialogs live outside the table so a row scrolled out of view cannot close them.
+  if (open_exclude_) {
+    ImGui::OpenPopup("Exclude reading");
+    open_exclude_ = false;
+  }
+  draw_exclude_dialog();
+  if (open_keypad_) {
+    ImGui::OpenPopup(keypad_.popup_id().c_str());
+    open_keypad_ = false;
+  }
+  if (correcting_) {
+    if (const auto value = keypad_.draw()) {
+      const size_t i = *correcting_;
+      correcting_.reset();
+      if (i < readings.size()) {
+        const Reading& r = readings[i];
         app::ReadingEdit edit{i, r, r, "correct reading " + std::to_string(i + 1)};
         edit.after.z = *value;
-        correcting_.reset();
         apply_edit(std::move(edit));
-      } else if (!ImGui::IsPopupOpen(keypad_.popup_id().c_str())) {
-        correcting_.reset();
       }
+    } else if (!ImGui::IsPopupOpen(keypad_.popup_id().c_str())) {
+      correcting_.reset();
     }
-    ImGui::TableNextColumn();
-    // Beyond 2σ is shown in the departure colours: out of tolerance, look again.
-    const double res = fit.residuals[i];
-    const bool beyond = std::abs(res) > 2.0 * fit.sigmas[i];
-    if (beyond) ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(res < 0 ? c.residual_below : c.residual_above));
-    ImGui::Text("%+.1f%s", res * 1000, beyond ? "  (> 2 sigma)" : "");
-    if (beyond) ImGui::PopStyleColor();
-    ImGui::TableNextColumn();
-    if (r.excluded)
-      ImGui::TextWrapped("excluded: %s", r.exclusion_reason.c_str());
-    else if (r.check)
-      ImGui::TextUnformatted("closing check");
-    else
-      ImGui::TextUnformatted("used");
-    ImGui::TableNextColumn();
-    if (!r.check) {
-      if (r.excluded) {
-        const bool pressed = ImGui::Button("Use again");
-        probe("use again:" + std::to_string(i + 1));
-        if (pressed) {
-          app::ReadingEdit edit{i, r, r, "use reading " + std::to_string(i + 1) + " again"};
-          edit.after.excluded = false;
-          edit.after.exclusion_reason.clear();
-          apply_edit(std::move(edit));
-        }
-      } else {
-        const bool pressed =
-            ImGui::Button("Exclude...") || (i == readings.size() / 2 && screenshot_dialog_ == "exclude");
-        probe("exclude:" + std::to_string(i + 1));
-        if (pressed) {
-          excluding_ = i;
-          reason_[0] = '\0';
-          ImGui::OpenPopup("Exclude reading");
-        }
-      }
-    }
-    draw_exclude_dialog();
-    ImGui::PopID();
   }
-  ImGui::EndTable();
-  screenshot_dialog_.clear();  // a dialog requested for a screenshot opens once
+}
+
+void SectionWorkspace::request_keypad(size_t i) {
+  const Reading& r = entries_[selected_].sheet->readings[i];
+  correcting_ = i;
+  keypad_.begin("Height z (m) of reading " + std::to_string(i + 1), r.z, 3);
+  open_keypad_ = true;
+}
+
+void SectionWorkspace::request_exclude(size_t i) {
+  excluding_ = i;
+  reason_[0] = '\0';
+  open_exclude_ = true;
 }
 
 void SectionWorkspace::draw_exclude_dialog() {

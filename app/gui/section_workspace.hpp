@@ -51,6 +51,8 @@ class SectionWorkspace {
   void draw_edit_bar();
   void draw_readings_table();
   void draw_exclude_dialog();
+  void request_keypad(size_t reading);
+  void request_exclude(size_t reading);
 
   std::vector<Entry> entries_;
   size_t selected_ = 0;
@@ -61,6 +63,7 @@ class SectionWorkspace {
   std::optional<size_t> excluding_;  // reading whose exclusion is being confirmed
   std::optional<size_t> correcting_;  // reading whose height is being corrected on the keypad
   NumericKeypad keypad_;
+  bool open_keypad_ = false, open_exclude_ = false;  // popups opened after the table
   std::string screenshot_dialog_;
   char reason_[160] = {};
 };
