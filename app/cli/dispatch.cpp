@@ -12,6 +12,7 @@ int run_show(int argc, char** argv);    // project_commands.cpp
 int run_search(int argc, char** argv);  // search_command.cpp
 int run_demo(int argc, char** argv);    // demo_command.cpp
 int run_export_section(int argc, char** argv);  // export_section_command.cpp
+int run_export(int argc, char** argv);  // export_command.cpp
 
 namespace {
 void print_usage() {
@@ -44,6 +45,7 @@ int run(int argc, char** argv) {
   if (verb == "search") return run_search(argc - 1, argv + 1);
   if (verb == "demo") return run_demo(argc - 1, argv + 1);
   if (verb == "export-section") return run_export_section(argc - 1, argv + 1);
+  if (verb == "export") return run_export(argc - 1, argv + 1);
   if (verb == "--help" || verb == "-h" || verb == "help") {
     print_usage();
     return 0;
