@@ -12,6 +12,7 @@
 #include <string_view>
 #include <vector>
 
+#include "app/cli/fit_options.hpp"
 #include "app/cli/option_parsing.hpp"
 #include "exports/safe_output_path.hpp"
 #include "exports/section_gmsh_geo.hpp"
@@ -56,12 +57,6 @@ Formats parse_formats(std::string_view list) {
   return f;
 }
 
-std::string shape_names() {
-  std::string names;
-  for (const ShapeFamily* family : shape_families()) names += std::string(family->name()) + "|";
-  return names + "auto";
-}
-
 }  // namespace
 
 int run_export_section(int argc, char** argv) {
@@ -77,10 +72,8 @@ int run_export_section(int argc, char** argv) {
       if (arg == "--out") {
         out_dir = std::string(args.value(arg));
         if (out_dir.empty()) throw UsageError("--out needs a folder");
-      } else if (arg == "--shape") {
-        request.shape = std::string(args.value(arg));
-        if (request.shape != "auto" && !find_shape_family(request.shape))
-          throw UsageError("--shape must be one of " + shape_names() + ", not '" + request.shape + "'");
+      } else if (parse_fit_option(args, arg, request, sheet_options)) {
+        continue;
       } else if (arg == "--ring-mm") {
         const double t = args.number(arg);
         if (!(t > 0.0)) throw UsageError("--ring-mm must be a positive number of millimetres");
@@ -89,19 +82,6 @@ int run_export_section(int argc, char** argv) {
         model.road_z_m = args.number(arg);
       } else if (arg == "--format") {
         formats = parse_formats(args.value(arg));
-      } else if (arg == "--seed") {
-        request.uncertainty.seed = static_cast<std::uint64_t>(args.integer(arg, 0));
-      } else if (arg == "--mc") {
-        request.uncertainty.monte_carlo_draws = static_cast<int>(args.integer(arg, 0, 1000000));
-      } else if (arg == "--sigma-mm") {
-        const double s = args.number(arg);
-        if (!(s > 0.0)) throw UsageError("--sigma-mm must be a positive number of millimetres");
-        sheet_options.default_sigma_m = s / 1000.0;
-        request.fit.fallback_sigma_m = s / 1000.0;
-      } else if (arg == "--springing-z") {
-        request.fit.springing_z = args.number(arg);
-      } else if (arg == "--robust") {
-        request.fit.robust = true;
       } else if (!arg.empty() && arg[0] == '-') {
         throw UsageError("unknown option '" + std::string(arg) + "'");
       } else if (file.empty()) {
@@ -120,18 +100,9 @@ int run_export_section(int argc, char** argv) {
     return 2;
   }
 
-  SurveySheet sheet;
-  try {
-    sheet = read_sheet_file(file, sheet_options);
-  } catch (const InputError& e) {
-    std::fprintf(stderr, "soffit export-section: %s\n", e.what());
-    return 2;
-  }
-  const ProfileAnalysis analysis = analyse_profile(sheet.readings, request);
-  if (!analysis.ok()) {
-    std::fprintf(stderr, "soffit export-section: %s: cannot fit: %s\n", file.c_str(), analysis.error.c_str());
-    return 2;  // the data cannot be fitted: bad input, as for soffit fit
-  }
+  const auto fitted = read_and_fit("export-section", file, sheet_options, request);
+  if (!fitted) return 2;  // data that cannot be read or fitted is bad input, as for soffit fit
+  const auto& [sheet, analysis] = *fitted;
   // Each option is judged on its own first, so the message names the one to fix.
   RingFillOptions ring_only = model;
   ring_only.road_z_m.reset();
