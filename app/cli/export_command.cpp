@@ -1,11 +1,12 @@
 // soffit export PROJECT --structure REF [--inspection YYYY-MM-DD] --out DIR
-//              [--format json,csv,svg,geo] [--mc N] [--seed K]
+//              [--format json,csv,svg,geo,pdf] [--mc N] [--seed K]
 // Writes one inspection of one structure for the analyst: the geometry file
 // (exports/GEOMETRY_JSON.md) and, for each section of the inspection, the
 // points CSV, the SVG elevation and the Gmsh script, into DIR (created if
 // missing). Prints each written path on its own line; what had to be left
 // out (no fit, no ring count, no fill at the crown) goes to stderr as a
-// warning and into the JSON's "warnings".
+// warning and into the JSON's "warnings". With pdf in --format, the
+// inspection report (exports/report_pdf.hpp) is written as well.
 #include <cstdio>
 #include <filesystem>
 #include <iostream>
@@ -16,6 +17,7 @@
 
 #include "app/cli/option_parsing.hpp"
 #include "exports/geometry_json.hpp"
+#include "exports/report_pdf.hpp"
 #include "exports/safe_output_path.hpp"
 #include "exports/section_gmsh_geo.hpp"
 #include "exports/section_points_csv.hpp"
@@ -24,6 +26,7 @@
 #include "exports/structure_geometry.hpp"
 #include "storage/export_queries.hpp"
 #include "storage/project_file.hpp"
+#include "storage/report_queries.hpp"
 
 namespace soffit::cli {
 
@@ -31,13 +34,13 @@ namespace {
 
 constexpr const char* kUsage =
     "usage: soffit export PROJECT --structure REF [--inspection YYYY-MM-DD] --out DIR\n"
-    "                     [--format json,csv,svg,geo] [--mc N] [--seed K]\n"
+    "                     [--format json,csv,svg,geo,pdf] [--mc N] [--seed K]\n"
     "  --inspection  the visit to export (default: the latest)\n"
-    "  --format      default json,csv,svg,geo\n"
+    "  --format      default json,csv,svg,geo; pdf adds the inspection report\n"
     "  --mc, --seed  Monte Carlo draws (default 2000) and seed (default 1) of the ranges\n";
 
 struct Formats {
-  bool json = false, csv = false, svg = false, geo = false;
+  bool json = false, csv = false, svg = false, geo = false, pdf = false;
 };
 
 Formats parse_formats(std::string_view list) {
@@ -50,10 +53,9 @@ Formats parse_formats(std::string_view list) {
     else if (item == "csv") f.csv = true;
     else if (item == "svg") f.svg = true;
     else if (item == "geo") f.geo = true;
-    else if (item == "pdf")
-      throw UsageError("--format: the pdf report is not available in this version (json, csv, svg, geo)");
+    else if (item == "pdf") f.pdf = true;
     else
-      throw UsageError("--format: '" + std::string(item) + "' is not a format (json, csv, svg, geo)");
+      throw UsageError("--format: '" + std::string(item) + "' is not a format (json, csv, svg, geo, pdf)");
     start = end + 1;
   }
   return f;
@@ -93,7 +95,7 @@ RingFillOptions section_model(const StructureGeometry& g, const AnalysedSection&
 int run_export(int argc, char** argv) {
   std::string project_path, structure_ref, out_dir;
   std::optional<std::string> date;
-  Formats formats{true, true, true, true};
+  Formats formats{true, true, true, true, false};
   GeometryJsonOptions options;
   options.program = std::string("soffit ") + SOFFIT_VERSION;
   try {
@@ -172,6 +174,10 @@ int run_export(int argc, char** argv) {
           written.push_back(write_export_file(out_dir, base + "_ring-fill.geo",
                                               section_gmsh_geo(s.sheet, s.analysis, model, options.program)));
       }
+    }
+    if (formats.pdf) {
+      const ReportPdfInput report{&data, &g, storage::load_defect_thumbnails(project.db(), data), options.program};
+      written.push_back(write_export_file(out_dir, sanitise_file_name(stem + "_report.pdf"), report_pdf(report)));
     }
     for (const fs::path& p : written) std::cout << p.string() << "\n";
   } catch (const storage::StorageError& e) {

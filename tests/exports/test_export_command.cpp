@@ -130,9 +130,6 @@ TEST_CASE("soffit export: bad input exits 2 and names the problem") {
   r = run_soffit(demo_args() + " --format json,dxf" + out);
   CHECK(r.exit_code == 2);
   CHECK(r.err.find("'dxf'") != std::string::npos);
-  r = run_soffit(demo_args() + " --format pdf" + out);
-  CHECK(r.exit_code == 2);
-  CHECK(r.err.find("pdf") != std::string::npos);
   r = run_soffit(demo_args());
   CHECK(r.exit_code == 2);
   CHECK(r.err.find("--out") != std::string::npos);
