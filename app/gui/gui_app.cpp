@@ -105,6 +105,10 @@ int run_gui(const GuiOptions& options) {
     state.screens.open_demo();
     if (options.view == "start") {
       state.screens.screen = Screen::start;
+    } else if (options.view == "defects") {
+      state.screens.open_first_defects();
+    } else if (options.view == "rings") {
+      state.screens.open_first_rings_fill();
     } else if (options.view == "structure") {
       state.screens.open_first_sections();
       state.screens.screen = Screen::structure;

@@ -44,6 +44,9 @@ void ProjectScreens::remember(const std::string& path) {
 }
 
 void ProjectScreens::open_path(const std::string& path, bool create) {
+  defects.close();
+  rings_fill.close();
+  visit_views_open_ = false;
   try {
     if (create) storage::Project::create(path, author_).close();
     session_.open(path, author_);
@@ -60,6 +63,9 @@ void ProjectScreens::open_path(const std::string& path, bool create) {
 
 void ProjectScreens::open_demo() {
   const std::string path = app::app_data_dir() + "/sallow-ford-demo.soffit";
+  defects.close();
+  rings_fill.close();
+  visit_views_open_ = false;
   try {
     session_.open_demo(path, assets_dir_ + "/sheets", author_);
     structures_ = session_.structures();
@@ -75,6 +81,29 @@ void ProjectScreens::open_first_sections() {
   if (structures_.empty()) return;
   show_structure(structures_.front().structure.fields.ref);
   if (detail_ && !detail_->inspections.empty()) open_sections(detail_->inspections.front());
+}
+
+void ProjectScreens::open_first_defects() {
+  if (structures_.empty()) return;
+  show_structure(structures_.front().structure.fields.ref);
+  if (detail_ && !detail_->inspections.empty()) {
+    open_visit_views(detail_->inspections.back().date);
+    screen = Screen::defects;
+  }
+}
+
+void ProjectScreens::open_first_rings_fill() {
+  open_first_defects();
+  if (visit_views_open_) screen = Screen::rings_fill;
+}
+
+void ProjectScreens::open_visit_views(const std::string& date) {
+  if (!detail_ || !session_.project()) return;
+  defects.close();
+  rings_fill.close();
+  defects.open(*session_.project(), detail_->structure.fields.ref, date);
+  rings_fill.open(*session_.project(), detail_->structure.fields.ref, date);
+  visit_views_open_ = true;
 }
 
 void ProjectScreens::show_structure(const std::string& ref) {
@@ -104,9 +133,13 @@ void ProjectScreens::draw_tabs() {
   const Tab tabs[] = {{"Start", Screen::start, true},
                       {"Register", Screen::register_list, session_.is_open()},
                       {"Structure", Screen::structure, detail_.has_value()},
-                      {"Sections", Screen::section, !sections.empty()}};
+                      {"Sections", Screen::section, !sections.empty()},
+                      {"Defects", Screen::defects, visit_views_open_},
+                      {"Rings & fill", Screen::rings_fill, visit_views_open_}};
+  bool first = true;  // the tabs start their own row under the top bar
   for (const Tab& t : tabs) {
-    ImGui::SameLine();
+    if (!first) ImGui::SameLine();
+    first = false;
     ImGui::BeginDisabled(!t.enabled);
     const bool current = screen == t.screen;
     if (current) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyle().Colors[ImGuiCol_ButtonActive]);
@@ -123,6 +156,8 @@ void ProjectScreens::draw_current() {
     case Screen::register_list: draw_register(); break;
     case Screen::structure: draw_structure(); break;
     case Screen::section: sections.draw(); break;
+    case Screen::defects: defects.draw(); break;
+    case Screen::rings_fill: rings_fill.draw(); break;
   }
 }
 
@@ -236,9 +271,19 @@ void ProjectScreens::draw_structure() {
                 v.status.c_str());
     ImGui::SameLine();
     ImGui::BeginDisabled(v.sections.empty());
-    const bool open = ImGui::Button("Open sections");
+    const bool open = ImGui::Button("Sections");
     probe("visit:" + v.date);
     ImGui::EndDisabled();
+    ImGui::SameLine();
+    if (ImGui::Button("Defects")) {
+      open_visit_views(v.date);
+      screen = Screen::defects;
+    }
+    ImGui::SameLine();
+    if (ImGui::Button("Rings & fill")) {
+      open_visit_views(v.date);
+      screen = Screen::rings_fill;
+    }
     for (const auto& s : v.sections)
       ImGui::BulletText("%s %s: %s, %d readings (%d excluded)", s.span_label.c_str(), s.label.c_str(),
                         s.method.c_str(), s.reading_count, s.excluded_count);

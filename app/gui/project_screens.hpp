@@ -5,12 +5,14 @@
 #include <string>
 #include <vector>
 
+#include "app/gui/defects_view.hpp"
+#include "app/gui/rings_fill_view.hpp"
 #include "app/gui/section_workspace.hpp"
 #include "app/model/project_session.hpp"
 
 namespace soffit::gui {
 
-enum class Screen { start, register_list, structure, section };
+enum class Screen { start, register_list, structure, section, defects, rings_fill };
 
 class ProjectScreens {
  public:
@@ -20,9 +22,14 @@ class ProjectScreens {
   void open_demo();
   // Opens the first visit of the first structure in the section view.
   void open_first_sections();
+  // Opens the latest visit of the first structure in the defects / rings and fill view.
+  void open_first_defects();
+  void open_first_rings_fill();
 
   Screen screen = Screen::start;
   SectionWorkspace sections;
+  DefectsView defects;
+  RingsFillView rings_fill;
 
   void draw_tabs();
   void draw_current();
@@ -34,6 +41,7 @@ class ProjectScreens {
   void draw_structure();
   void show_structure(const std::string& ref);
   void open_sections(const storage::InspectionRecord& visit);
+  void open_visit_views(const std::string& date);  // defects and rings/fill of one visit
   void remember(const std::string& path);
 
   std::string assets_dir_, author_;
@@ -45,6 +53,7 @@ class ProjectScreens {
   std::vector<storage::StructureSummary> structures_;
   std::vector<storage::SearchHit> hits_;
   std::optional<storage::StructureDetail> detail_;
+  bool visit_views_open_ = false;
 };
 
 }  // namespace soffit::gui

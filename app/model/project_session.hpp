@@ -29,6 +29,8 @@ class ProjectSession {
   std::vector<storage::SearchHit> search(const std::string& text);
   std::optional<storage::StructureDetail> structure(const std::string& ref);
   SurveySheet section_sheet(const std::string& section_id);
+  // The open project for views that edit observations (nullptr when none is open).
+  storage::Project* project() { return project_ ? &*project_ : nullptr; }
 
  private:
   std::optional<storage::Project> project_;
