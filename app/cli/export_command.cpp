@@ -16,17 +16,10 @@
 #include <vector>
 
 #include "app/cli/option_parsing.hpp"
+#include "app/model/inspection_export.hpp"
 #include "exports/geometry_json.hpp"
-#include "exports/report_pdf.hpp"
 #include "exports/safe_output_path.hpp"
-#include "exports/section_gmsh_geo.hpp"
-#include "exports/section_points_csv.hpp"
-#include "exports/section_ring_fill.hpp"
-#include "exports/section_svg.hpp"
-#include "exports/structure_geometry.hpp"
-#include "storage/export_queries.hpp"
 #include "storage/project_file.hpp"
-#include "storage/report_queries.hpp"
 
 namespace soffit::cli {
 
@@ -39,12 +32,10 @@ constexpr const char* kUsage =
     "  --format      default json,csv,svg,geo; pdf adds the inspection report\n"
     "  --mc, --seed  Monte Carlo draws (default 2000) and seed (default 1) of the ranges\n";
 
-struct Formats {
-  bool json = false, csv = false, svg = false, geo = false, pdf = false;
-};
+using Formats = app::ExportFormats;
 
 Formats parse_formats(std::string_view list) {
-  Formats f;
+  Formats f{false, false, false, false, false};
   size_t start = 0;
   while (start <= list.size()) {
     const size_t end = std::min(list.find(',', start), list.size());
@@ -59,35 +50,6 @@ Formats parse_formats(std::string_view list) {
     start = end + 1;
   }
   return f;
-}
-
-void warn(const std::string& message) { std::fprintf(stderr, "soffit export: warning: %s\n", message.c_str()); }
-
-// The drawing and meshing model of one section, each term dropped with a
-// warning when it is missing or does not suit the fit.
-RingFillOptions section_model(const StructureGeometry& g, const AnalysedSection& s, const std::string& name) {
-  RingFillOptions model;
-  const SpanGeometry* span = span_of_section(g, s);
-  if (span && span->ring_from_counts_mm) {
-    model.ring_thickness_m = *span->ring_from_counts_mm / 1000.0;
-    if (const std::string problem = ring_fill_problem(*s.analysis.fit, model); !problem.empty()) {
-      warn(name + ": ring thickness from the counts not used: " + problem);
-      model.ring_thickness_m.reset();
-    }
-  } else {
-    warn(name + ": no ring thickness from the ring counts: the elevation has no extrados and no .geo is written");
-  }
-  std::string why;
-  if (const auto road = road_z_over_crown(g, s, why)) {
-    model.road_z_m = road;
-    if (const std::string problem = ring_fill_problem(*s.analysis.fit, model); !problem.empty()) {
-      warn(name + ": road level from the fill observations not used: " + problem);
-      model.road_z_m.reset();
-    }
-  } else {
-    warn(name + ": road level omitted: " + why);
-  }
-  return model;
 }
 
 }  // namespace
@@ -132,54 +94,12 @@ int run_export(int argc, char** argv) {
     return 2;
   }
 
-  namespace fs = std::filesystem;
   try {
     storage::Project project = storage::Project::open(project_path, "soffit export", storage::Access::view);
-    const storage::InspectionExportData data = storage::load_inspection_export(project.db(), structure_ref, date);
-    const StructureGeometry g =
-        analyse_structure(data, export_profile_request(options.monte_carlo_draws, options.seed));
-
-    std::error_code ec;
-    fs::create_directories(out_dir, ec);
-    if (ec || !fs::is_directory(out_dir)) {
-      std::fprintf(stderr, "soffit export: --out: cannot use '%s' as a folder%s%s\n", out_dir.c_str(),
-                   ec ? ": " : "", ec ? ec.message().c_str() : "");
-      return 2;
-    }
-    const std::string stem = sanitise_file_name(data.structure.fields.ref + "_" + data.inspection.date, 60);
-    std::vector<fs::path> written;
-    if (formats.json) {
-      const std::string text = geometry_json_text(geometry_json(data, g, options));
-      written.push_back(write_export_file(out_dir, sanitise_file_name(stem + "_geometry.json"), text));
-    }
-    if (formats.csv || formats.svg || formats.geo) {
-      for (const AnalysedSection& s : g.sections) {
-        const std::string name = "span " + s.source->record.span_label + " section " + s.source->record.label;
-        if (!s.analysis.ok()) {
-          warn(name + ": no fit (" + s.analysis.error + "): no section files");
-          continue;
-        }
-        const std::string base =
-            sanitise_file_name(stem + "_" + s.source->record.span_label + "-" + s.source->record.label,
-                               kMaxExportNameLength - 20);
-        if (formats.csv)
-          written.push_back(write_export_file(out_dir, base + "_points.csv",
-                                              section_points_csv(s.sheet, s.analysis, options.program)));
-        if (!formats.svg && !formats.geo) continue;
-        const RingFillOptions model = section_model(g, s, name);
-        if (formats.svg)
-          written.push_back(write_export_file(out_dir, base + "_elevation.svg",
-                                              section_svg(s.sheet, s.analysis, model, options.program)));
-        if (formats.geo && model.ring_thickness_m)
-          written.push_back(write_export_file(out_dir, base + "_ring-fill.geo",
-                                              section_gmsh_geo(s.sheet, s.analysis, model, options.program)));
-      }
-    }
-    if (formats.pdf) {
-      const ReportPdfInput report{&data, &g, storage::load_defect_thumbnails(project.db(), data), options.program};
-      written.push_back(write_export_file(out_dir, sanitise_file_name(stem + "_report.pdf"), report_pdf(report)));
-    }
-    for (const fs::path& p : written) std::cout << p.string() << "\n";
+    const app::ExportInput input = app::load_export_input(project.db(), structure_ref, date, formats.pdf);
+    const app::ExportOutcome outcome = app::write_inspection_export(input, out_dir, formats, options);
+    for (const std::string& w : outcome.warnings) std::fprintf(stderr, "soffit export: warning: %s\n", w.c_str());
+    for (const auto& p : outcome.written) std::cout << p.string() << "\n";
   } catch (const storage::StorageError& e) {
     std::fprintf(stderr, "soffit export: %s\n", e.what());
     return e.kind() == storage::ErrorKind::io || e.kind() == storage::ErrorKind::disk_full ? 1 : 2;

@@ -284,12 +284,18 @@ void ProjectScreens::draw_structure() {
       open_visit_views(v.date);
       screen = Screen::rings_fill;
     }
+    ImGui::SameLine();
+    const bool export_pressed = ImGui::Button("Export...");
+    probe("export:" + v.date);
+    if (export_pressed && session_.project())
+      export_dialog.request(*session_.project(), detail_->structure.fields.ref, v.date);
     for (const auto& s : v.sections)
       ImGui::BulletText("%s %s: %s, %d readings (%d excluded)", s.span_label.c_str(), s.label.c_str(),
                         s.method.c_str(), s.reading_count, s.excluded_count);
     ImGui::PopID();
     if (open) open_sections(v);
   }
+  export_dialog.draw();
 }
 
 }  // namespace soffit::gui

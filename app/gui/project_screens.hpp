@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "app/gui/defects_view.hpp"
+#include "app/gui/export_dialog.hpp"
 #include "app/gui/rings_fill_view.hpp"
 #include "app/gui/section_workspace.hpp"
 #include "app/model/project_session.hpp"
@@ -29,6 +30,7 @@ class ProjectScreens {
   Screen screen = Screen::start;
   SectionWorkspace sections;
   DefectsView defects;
+  ExportDialog export_dialog;
   RingsFillView rings_fill;
 
   void draw_tabs();
