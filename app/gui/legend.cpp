@@ -34,6 +34,7 @@ void draw_legend_popup(const char* popup_id) {
   entry(Mark::dot, c.reading, "reading used in the fit");
   entry(Mark::ring, c.excluded, "reading excluded from the fit (kept, with its reason)");
   entry(Mark::line, c.fitted_curve, "fitted intrados between the springings");
+  entry(Mark::line, c.band, "95% band of the fitted curve's position (drawn x50, like the bars)");
   entry(Mark::line, c.faint_ink, "springing line");
   entry(Mark::bar, c.residual_above, "reading above the fitted intrados (bar drawn x50)");
   entry(Mark::bar, c.residual_below, "reading below the fitted intrados: sag or flattening (bar drawn x50)");

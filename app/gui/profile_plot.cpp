@@ -22,7 +22,8 @@ constexpr size_t kMaxDrawnMarks = 8000;
 constexpr float kCellPixels = 2.0f;
 }
 
-void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis, float height) {
+void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis, const IntradosBand* band,
+                       float height) {
   const Palette& c = palette();
   ImDrawList* draw = ImGui::GetWindowDrawList();
   const ImVec2 origin = ImGui::GetCursorScreenPos();
@@ -30,6 +31,7 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
   const float pad = ImGui::GetFontSize() * 1.5f;
   draw->AddRectFilled(origin, ImVec2(origin.x + width, origin.y + height), c.paper);
   draw->AddRect(origin, ImVec2(origin.x + width, origin.y + height), c.faint_ink);
+  draw->PushClipRect(origin, ImVec2(origin.x + width, origin.y + height), true);  // the band may reach past the frame
 
   const ShapeFit& fit = *analysis.fit;
   const std::vector<Point2> curve = sample_outline(fit.outline, 96);
@@ -56,6 +58,19 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
     draw->AddLine(at(x0, gz), at(x1, gz), c.grid);
   draw->AddLine(at(x0, fit.outline.z_springing), at(x1, fit.outline.z_springing), c.faint_ink, 1.5f);
 
+  // The 95% band of the curve's position, exaggerated like the residual bars so
+  // that a bar reaching beyond it marks a reading the fit cannot explain.
+  if (band) {
+    const auto& st = band->stations;
+    for (size_t i = 1; i < st.size(); ++i) {
+      const double e0 = st[i - 1].half_width_95_m * kResidualExaggeration, e1 = st[i].half_width_95_m * kResidualExaggeration;
+      const ImVec2 a_out = at(st[i - 1].at.x + st[i - 1].normal.x * e0, st[i - 1].at.z + st[i - 1].normal.z * e0);
+      const ImVec2 a_in = at(st[i - 1].at.x - st[i - 1].normal.x * e0, st[i - 1].at.z - st[i - 1].normal.z * e0);
+      const ImVec2 b_out = at(st[i].at.x + st[i].normal.x * e1, st[i].at.z + st[i].normal.z * e1);
+      const ImVec2 b_in = at(st[i].at.x - st[i].normal.x * e1, st[i].at.z - st[i].normal.z * e1);
+      draw->AddQuadFilled(a_out, b_out, b_in, a_in, c.band);
+    }
+  }
   for (size_t i = 1; i < curve.size(); ++i)
     draw->AddLine(at(curve[i - 1].x, curve[i - 1].z), at(curve[i].x, curve[i].z), c.fitted_curve, 3.0f);
 
@@ -97,12 +112,13 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
     draw->AddLine(p, tip, res < 0 ? c.residual_below : c.residual_above, 3.0f);
     draw->AddCircleFilled(p, dot, c.reading);
   }
+  draw->PopClipRect();
   char label[160];
   if (dense)
     std::snprintf(label, sizeof label, "grid 0.5 m; %zu of %zu readings drawn (all are fitted)", drawn,
                   readings.size());
   else
-    std::snprintf(label, sizeof label, "grid 0.5 m; residual bars drawn x%.0f", kResidualExaggeration);
+    std::snprintf(label, sizeof label, "grid 0.5 m; residual bars and 95%% band drawn x%.0f", kResidualExaggeration);
   draw->AddText(ImVec2(origin.x + pad * 0.5f, origin.y + pad * 0.3f), c.faint_ink, label);
   ImGui::Dummy(ImVec2(width, height));
 }

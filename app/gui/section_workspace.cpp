@@ -82,6 +82,8 @@ void SectionWorkspace::start_fit() {
 void SectionWorkspace::poll() {
   if (pending_.valid() && pending_.wait_for(std::chrono::seconds(0)) == std::future_status::ready) {
     analysis_ = pending_.get();
+    band_.reset();
+    if (analysis_->ok()) band_ = intrados_band(*analysis_->fit, analysis_->uncertainty, 48);
     if (refit_wanted_) {
       refit_wanted_ = false;
       start_fit();
@@ -327,7 +329,7 @@ void SectionWorkspace::draw_results() {
   ImGui::Text("RMS residual %.1f mm, largest %.1f mm, %d readings used", fit.rms_m * 1000,
               fit.max_abs_m * 1000, fit.n_used);
   if (busy()) ImGui::TextUnformatted("Refitting...");
-  draw_profile_plot(e.sheet->readings, *analysis_, ImGui::GetFontSize() * 16);
+  draw_profile_plot(e.sheet->readings, *analysis_, band_ ? &*band_ : nullptr, ImGui::GetFontSize() * 16);
   draw_readings_table();
 
   if (analysis_->selection && ImGui::BeginTable("families", 4, ImGuiTableFlags_Borders)) {

@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "app/gui/numeric_keypad.hpp"
+#include "exports/intrados_band.hpp"
 #include "app/model/edit_history.hpp"
 #include "geometry/analysis/profile_analysis.hpp"
 #include "geometry/sheet/survey_sheet.hpp"
@@ -60,6 +61,7 @@ class SectionWorkspace {
   std::future<ProfileAnalysis> pending_;
   bool refit_wanted_ = false;  // the readings changed while a fit was running
   std::optional<ProfileAnalysis> analysis_;
+  std::optional<IntradosBand> band_;  // of analysis_, computed when it arrives
   std::optional<size_t> excluding_;  // reading whose exclusion is being confirmed
   std::optional<size_t> correcting_;  // reading whose height is being corrected on the keypad
   NumericKeypad keypad_;
