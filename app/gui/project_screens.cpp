@@ -284,6 +284,7 @@ void ProjectScreens::draw_structure() {
       open_visit_views(v.date);
       screen = Screen::rings_fill;
     }
+    draw_sign_off(v);
     ImGui::SameLine();
     const bool export_pressed = ImGui::Button("Export...");
     probe("export:" + v.date);
@@ -296,6 +297,93 @@ void ProjectScreens::draw_structure() {
     if (open) open_sections(v);
   }
   export_dialog.draw();
+  draw_sign_off_dialogs();
+  if (refresh_structure_) {
+    refresh_structure_ = false;
+    show_structure(detail_->structure.fields.ref);
+  }
+  if (!message_.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().residual_below));
+    ImGui::TextWrapped("%s", message_.c_str());
+    ImGui::PopStyleColor();
+  }
+}
+
+void ProjectScreens::draw_sign_off(const storage::InspectionRecord& v) {
+  ImGui::SameLine();
+  if (v.status == "draft") {
+    const bool pressed = ImGui::Button("Mark checked");
+    probe("checked:" + v.date);
+    if (pressed) {
+      try {
+        session_.set_visit_status(v.id, "checked");
+        message_.clear();
+      } catch (const std::exception& e) {
+        message_ = e.what();
+      }
+      refresh_structure_ = true;  // not now: the caller is iterating over these visits
+    }
+  } else if (v.status == "checked") {
+    const bool pressed = ImGui::Button("Issue...");
+    probe("issue:" + v.date);
+    if (pressed) {
+      signing_visit_ = v.id;
+      open_issue_ = true;
+    }
+  } else if (v.status == "issued") {
+    const bool pressed = ImGui::Button("New revision...");
+    probe("revise:" + v.date);
+    if (pressed) {
+      signing_visit_ = v.id;
+      revision_reason_[0] = '\0';
+      open_revise_ = true;
+    }
+  }
+}
+
+void ProjectScreens::draw_sign_off_dialogs() {
+  if (open_issue_) ImGui::OpenPopup("Issue visit");
+  if (open_revise_) ImGui::OpenPopup("New revision");
+  open_issue_ = open_revise_ = false;
+  if (ImGui::BeginPopupModal("Issue visit", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+    ImGui::TextWrapped("Once issued, this visit is read-only. A correction becomes a new revision, "
+                       "with who, when and why.");
+    const bool issue = ImGui::Button("Issue");
+    probe("issue:confirm");
+    if (issue) {
+      try {
+        session_.set_visit_status(signing_visit_, "issued");
+        message_.clear();
+      } catch (const std::exception& e) {
+        message_ = e.what();
+      }
+      ImGui::CloseCurrentPopup();
+      refresh_structure_ = true;
+    }
+    ImGui::SameLine();
+    if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
+    ImGui::EndPopup();
+  }
+  if (ImGui::BeginPopupModal("New revision", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+    ImGui::TextWrapped("A draft copy of the issued visit is made for the correction; the issued one stays as it is.");
+    ImGui::SetNextItemWidth(ImGui::GetFontSize() * 24);
+    ImGui::InputText("why", revision_reason_, sizeof revision_reason_);
+    ImGui::BeginDisabled(revision_reason_[0] == '\0');
+    if (ImGui::Button("Make revision")) {
+      try {
+        session_.revise_visit(signing_visit_, revision_reason_);
+        message_.clear();
+      } catch (const std::exception& e) {
+        message_ = e.what();
+      }
+      ImGui::CloseCurrentPopup();
+      refresh_structure_ = true;
+    }
+    ImGui::EndDisabled();
+    ImGui::SameLine();
+    if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
+    ImGui::EndPopup();
+  }
 }
 
 }  // namespace soffit::gui

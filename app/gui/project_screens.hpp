@@ -44,6 +44,8 @@ class ProjectScreens {
   void show_structure(const std::string& ref);
   void open_sections(const storage::InspectionRecord& visit);
   void open_visit_views(const std::string& date);  // defects and rings/fill of one visit
+  void draw_sign_off(const storage::InspectionRecord& visit);
+  void draw_sign_off_dialogs();
   void remember(const std::string& path);
 
   std::string assets_dir_, author_;
@@ -56,6 +58,10 @@ class ProjectScreens {
   std::vector<storage::SearchHit> hits_;
   std::optional<storage::StructureDetail> detail_;
   bool visit_views_open_ = false;
+  std::string signing_visit_;        // inspection id awaiting confirmation
+  bool open_issue_ = false, open_revise_ = false;
+  bool refresh_structure_ = false;  // re-read the structure after a sign-off step
+  char revision_reason_[200] = {};
 };
 
 }  // namespace soffit::gui

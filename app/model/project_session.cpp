@@ -4,6 +4,8 @@
 #include <filesystem>
 
 #include "storage/demo_project.hpp"
+#include "storage/inspection_revision.hpp"
+#include "storage/register_edits.hpp"
 #include "storage/register_queries.hpp"
 #include "storage/sheet_export.hpp"
 
@@ -43,6 +45,20 @@ std::optional<storage::StructureDetail> ProjectSession::structure(const std::str
 
 SurveySheet ProjectSession::section_sheet(const std::string& section_id) {
   return storage::load_section_sheet(project_->db(), section_id);
+}
+
+void ProjectSession::set_visit_status(const std::string& inspection_id, const std::string& status) {
+  if (!project_) return;
+  project_->edit("mark visit " + status, [&](storage::Connection& db) {
+    storage::set_inspection_status(db, project_->author(), inspection_id, status);
+  });
+}
+
+void ProjectSession::revise_visit(const std::string& inspection_id, const std::string& reason) {
+  if (!project_) return;
+  project_->edit("new revision of an issued visit", [&](storage::Connection& db) {
+    storage::create_inspection_revision(db, project_->author(), inspection_id, reason);
+  });
 }
 
 std::string app_data_dir() {

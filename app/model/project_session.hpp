@@ -29,6 +29,11 @@ class ProjectSession {
   std::vector<storage::SearchHit> search(const std::string& text);
   std::optional<storage::StructureDetail> structure(const std::string& ref);
   SurveySheet section_sheet(const std::string& section_id);
+
+  // Sign-off: draft → checked → issued, each one undoable edit; an issued visit
+  // is read-only and a correction is a new revision, with its reason.
+  void set_visit_status(const std::string& inspection_id, const std::string& status);
+  void revise_visit(const std::string& inspection_id, const std::string& reason);
   // The open project for views that edit observations (nullptr when none is open).
   storage::Project* project() { return project_ ? &*project_ : nullptr; }
 
