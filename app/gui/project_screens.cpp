@@ -113,14 +113,20 @@ void ProjectScreens::show_structure(const std::string& ref) {
 
 void ProjectScreens::open_sections(const storage::InspectionRecord& visit) {
   std::vector<std::pair<std::string, SurveySheet>> sheets;
+  section_ids_.clear();
   for (const storage::SectionRecord& s : visit.sections) {
     try {
       sheets.emplace_back(visit.date + "  " + s.span_label + " " + s.label, session_.section_sheet(s.id));
+      section_ids_.push_back(s.id);
     } catch (const std::exception& e) {
       message_ = e.what();
     }
   }
   sections.load_sheets(std::move(sheets));
+  // Exclusions go to the project as they are made (an issued visit refuses them, and says so).
+  sections.set_exclusion_store([this](size_t section, size_t reading, const std::string& reason) {
+    session_.set_reading_exclusion(section_ids_.at(section), reading, reason);
+  });
   screen = Screen::section;
 }
 

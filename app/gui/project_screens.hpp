@@ -35,6 +35,7 @@ class ProjectScreens {
 
   void draw_tabs();
   void draw_current();
+  app::ProjectSession& session() { return session_; }
 
  private:
   void open_path(const std::string& path, bool create);
@@ -58,6 +59,7 @@ class ProjectScreens {
   std::vector<storage::SearchHit> hits_;
   std::optional<storage::StructureDetail> detail_;
   bool visit_views_open_ = false;
+  std::vector<std::string> section_ids_;  // of the sections shown, in their order
   std::string signing_visit_;        // inspection id awaiting confirmation
   bool open_issue_ = false, open_revise_ = false;
   bool refresh_structure_ = false;  // re-read the structure after a sign-off step

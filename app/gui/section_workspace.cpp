@@ -59,6 +59,7 @@ void SectionWorkspace::load_sheets(std::vector<std::pair<std::string, SurveyShee
 void SectionWorkspace::select(size_t index) {
   if (index >= entries_.size()) return;
   selected_ = index;
+  save_state_.clear();
   analysis_.reset();
   start_fit();
 }
@@ -91,20 +92,53 @@ void SectionWorkspace::poll() {
   }
 }
 
+bool SectionWorkspace::store_exclusion(const Reading& before, const Reading& after, size_t reading) {
+  const bool exclusion_changed =
+      before.excluded != after.excluded || before.exclusion_reason != after.exclusion_reason;
+  if (!exclusion_changed) {
+    save_state_ = store_ ? "kept for this session only: corrections are not written to the project yet"
+                         : "kept for this session only";
+    return true;
+  }
+  if (!store_) {
+    save_state_ = "kept for this session only";
+    return true;
+  }
+  try {
+    store_(selected_, reading, after.excluded ? after.exclusion_reason : std::string());
+    save_state_ = "saved to the project";
+    return true;
+  } catch (const std::exception& ex) {
+    save_state_ = std::string("not saved: ") + ex.what();
+    return false;
+  }
+}
+
 void SectionWorkspace::apply_edit(app::ReadingEdit edit) {
   Entry& e = entries_[selected_];
+  const size_t index = edit.index;
+  const Reading before = edit.before, after = edit.after;
   e.history.apply(e.sheet->readings, std::move(edit));
+  if (!store_exclusion(before, after, index)) e.history.undo(e.sheet->readings);  // keep view and file in step
   start_fit();
 }
 
 void SectionWorkspace::undo() {
   Entry& e = entries_[selected_];
-  if (e.sheet && e.history.undo(e.sheet->readings)) start_fit();
+  if (!e.sheet) return;
+  if (const app::ReadingEdit* edit = e.history.undo(e.sheet->readings)) {
+    if (!store_exclusion(edit->after, edit->before, edit->index)) e.history.redo(e.sheet->readings);
+    start_fit();
+  }
 }
 
 void SectionWorkspace::redo() {
   Entry& e = entries_[selected_];
-  if (e.sheet && e.history.redo(e.sheet->readings)) start_fit();
+  if (!e.sheet) return;
+  if (const app::ReadingEdit* edit = e.history.redo(e.sheet->readings)) {
+    if (!store_exclusion(edit->before, edit->after, edit->index)) e.history.undo(e.sheet->readings);
+    start_fit();
+  }
 }
 
 void SectionWorkspace::draw_edit_bar() {
@@ -124,11 +158,11 @@ void SectionWorkspace::draw_edit_bar() {
                        ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Y))))
     redo();
   ImGui::EndDisabled();
-  if (e.history.can_undo()) {
+  if (!save_state_.empty()) {
+    // The autosave indicator: where the last change went, said plainly.
     ImGui::SameLine();
     ImGui::AlignTextToFramePadding();
-    // Honest about scope: these edits are not yet written to the project file.
-    ImGui::TextDisabled("last: %s (kept for this session only)", e.history.next_undo_label().c_str());
+    ImGui::TextDisabled("%s", save_state_.c_str());
   }
 }
 

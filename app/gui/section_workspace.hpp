@@ -1,6 +1,7 @@
 #pragma once
 // The section survey view: pick a sheet, see its readings, the fitted intrados
 // and the residuals. Fits run on a worker thread; a frame never waits for one.
+#include <functional>
 #include <future>
 #include <optional>
 #include <string>
@@ -21,6 +22,13 @@ class SectionWorkspace {
   // Shows these sections (label, sheet), replacing what was shown.
   void load_sheets(std::vector<std::pair<std::string, SurveySheet>> sheets);
   bool empty() const { return entries_.empty(); }
+
+  // Where exclusions are written as they are made (the open project): called
+  // with the section's position in load_sheets, the reading and the reason
+  // (empty: use it again). Throws when the store refuses; the view then undoes
+  // the change in memory and says why. Without a store, edits stay in the session.
+  using ExclusionStore = std::function<void(size_t section, size_t reading, const std::string& reason)>;
+  void set_exclusion_store(ExclusionStore store) { store_ = std::move(store); }
   void select(size_t index);
   // Collects a finished fit, if any. Call once per frame, on the UI thread.
   void poll();
@@ -45,6 +53,8 @@ class SectionWorkspace {
   };
   void start_fit();
   void apply_edit(app::ReadingEdit edit);
+  // Carries a change of exclusion to the store; false (and a message) if refused.
+  bool store_exclusion(const Reading& before, const Reading& after, size_t reading);
   void undo();
   void redo();
   void draw_sheet_list();
@@ -67,6 +77,8 @@ class SectionWorkspace {
   NumericKeypad keypad_;
   bool open_keypad_ = false, open_exclude_ = false;  // popups opened after the table
   std::string screenshot_dialog_;
+  ExclusionStore store_;
+  std::string save_state_;  // shown beside Undo/Redo: where the last change went
   char reason_[160] = {};
 };
 

@@ -9,22 +9,22 @@ void EditHistory::apply(Readings& readings, ReadingEdit edit) {
   undone_.clear();
 }
 
-bool EditHistory::undo(Readings& readings) {
-  if (done_.empty()) return false;
+const ReadingEdit* EditHistory::undo(Readings& readings) {
+  if (done_.empty()) return nullptr;
   ReadingEdit edit = std::move(done_.back());
   done_.pop_back();
   if (edit.index < readings.size()) readings[edit.index] = edit.before;
   undone_.push_back(std::move(edit));
-  return true;
+  return &undone_.back();
 }
 
-bool EditHistory::redo(Readings& readings) {
-  if (undone_.empty()) return false;
+const ReadingEdit* EditHistory::redo(Readings& readings) {
+  if (undone_.empty()) return nullptr;
   ReadingEdit edit = std::move(undone_.back());
   undone_.pop_back();
   if (edit.index < readings.size()) readings[edit.index] = edit.after;
   done_.push_back(std::move(edit));
-  return true;
+  return &done_.back();
 }
 
 }  // namespace soffit::app

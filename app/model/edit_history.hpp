@@ -19,8 +19,10 @@ class EditHistory {
  public:
   // Applies `edit` to `readings` and records it; clears what could be redone.
   void apply(Readings& readings, ReadingEdit edit);
-  bool undo(Readings& readings);
-  bool redo(Readings& readings);
+  // Each returns the edit it moved over (null when there was none), so the
+  // caller can carry the same change to wherever the readings are kept.
+  const ReadingEdit* undo(Readings& readings);
+  const ReadingEdit* redo(Readings& readings);
   bool can_undo() const { return !done_.empty(); }
   bool can_redo() const { return !undone_.empty(); }
   const std::string& next_undo_label() const { return done_.back().label; }

@@ -6,6 +6,8 @@
 #include "storage/demo_project.hpp"
 #include "storage/inspection_revision.hpp"
 #include "storage/register_edits.hpp"
+#include "storage/section_readings.hpp"
+#include "storage/storage_error.hpp"
 #include "storage/register_queries.hpp"
 #include "storage/sheet_export.hpp"
 
@@ -58,6 +60,17 @@ void ProjectSession::revise_visit(const std::string& inspection_id, const std::s
   if (!project_) return;
   project_->edit("new revision of an issued visit", [&](storage::Connection& db) {
     storage::create_inspection_revision(db, project_->author(), inspection_id, reason);
+  });
+}
+
+void ProjectSession::set_reading_exclusion(const std::string& section_id, size_t reading, const std::string& reason) {
+  if (!project_) return;
+  const std::vector<std::string> ids = storage::section_reading_ids(project_->db(), section_id);
+  if (reading >= ids.size())
+    throw storage::StorageError(storage::ErrorKind::not_found, project_->path(), "no such reading in the section");
+  const std::string label = (reason.empty() ? "use reading " : "exclude reading ") + std::to_string(reading + 1);
+  project_->edit(label, [&](storage::Connection& db) {
+    storage::set_reading_exclusion(db, project_->author(), ids[reading], reason);
   });
 }
 

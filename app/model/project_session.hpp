@@ -29,6 +29,9 @@ class ProjectSession {
   std::vector<storage::SearchHit> search(const std::string& text);
   std::optional<storage::StructureDetail> structure(const std::string& ref);
   SurveySheet section_sheet(const std::string& section_id);
+  // Writes a reading's exclusion (an empty reason includes it again) as one
+  // undoable edit; `reading` indexes the section's sheet as section_sheet gives it.
+  void set_reading_exclusion(const std::string& section_id, size_t reading, const std::string& reason);
 
   // Sign-off: draft → checked → issued, each one undoable edit; an issued visit
   // is read-only and a correction is a new revision, with its reason.
