@@ -69,6 +69,11 @@ std::vector<StructureSummary> list_structures(Connection& db, int limit, int off
                       ", (SELECT count(*) FROM inspection i WHERE i.structure_id = s.id)"
                       ", (SELECT count(*) FROM section_survey c JOIN inspection i ON i.id = c.inspection_id"
                       "   WHERE i.structure_id = s.id)"
+                      ", (SELECT max(inspection_date) FROM inspection i WHERE i.structure_id = s.id)"
+                      // The latest visit's worst defect, for the register's 'severe defects' filter.
+                      ", (SELECT max(d.severity) FROM defect d WHERE d.inspection_id ="
+                      "   (SELECT i.id FROM inspection i WHERE i.structure_id = s.id"
+                      "    ORDER BY i.inspection_date DESC, i.revision DESC LIMIT 1))"
                       " FROM structure s ORDER BY s.ref LIMIT ?1 OFFSET ?2");
   q.bind_all(limit, offset);
   std::vector<StructureSummary> out;
@@ -78,6 +83,8 @@ std::vector<StructureSummary> list_structures(Connection& db, int limit, int off
     s.span_count = static_cast<int>(q.column_int64(13));
     s.inspection_count = static_cast<int>(q.column_int64(14));
     s.section_count = static_cast<int>(q.column_int64(15));
+    s.latest_visit = q.column_text(16);
+    if (const auto worst = q.column_int_or_null(17)) s.worst_severity = static_cast<int>(*worst);
     out.push_back(std::move(s));
   }
   return out;

@@ -48,6 +48,8 @@ struct InspectionRecord {
 struct StructureSummary {
   StructureRecord structure;
   int span_count = 0, inspection_count = 0, section_count = 0;
+  std::string latest_visit;               // YYYY-MM-DD; empty when never inspected
+  std::optional<int> worst_severity;      // highest defect severity recorded at the latest visit
 };
 
 struct StructureDetail {

@@ -2,6 +2,7 @@
 
 #include <imgui.h>
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 
@@ -226,14 +227,34 @@ void ProjectScreens::draw_register() {
     }
     ImGui::Separator();
   }
-  if (!ImGui::BeginTable("structures", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
+  // Filters and order: big checkboxes and buttons, nothing behind a hover.
+  ImGui::Checkbox("Due for inspection: last visit at least", &filter_.due_only);
+  ImGui::SameLine();
+  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 7);
+  ImGui::InputInt("years ago", &filter_.interval_years);
+  filter_.interval_years = std::clamp(filter_.interval_years, 1, 20);
+  ImGui::Checkbox("Severe defects (4 or 5) at the latest visit", &filter_.severe_only);
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextUnformatted("Order:");
+  const std::pair<const char*, app::RegisterOrder> orders[] = {{"reference", app::RegisterOrder::reference},
+                                                                {"name", app::RegisterOrder::name},
+                                                                {"oldest visit first", app::RegisterOrder::latest_visit}};
+  for (const auto& [label, order] : orders) {
+    ImGui::SameLine();
+    if (ImGui::RadioButton(label, filter_.order == order)) filter_.order = order;
+  }
+  const std::vector<size_t> shown = app::filter_register(structures_, filter_, app::today_iso());
+  ImGui::Text("%zu of %zu structures", shown.size(), structures_.size());
+  if (!ImGui::BeginTable("structures", 7, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
   ImGui::TableSetupColumn("Reference");
   ImGui::TableSetupColumn("Name");
   ImGui::TableSetupColumn("Spans");
   ImGui::TableSetupColumn("Visits");
   ImGui::TableSetupColumn("Sections");
+  ImGui::TableSetupColumn("Last visit");
+  ImGui::TableSetupColumn("Worst severity");
   ImGui::TableHeadersRow();
-  for (size_t i = 0; i < structures_.size(); ++i) {
+  for (size_t i : shown) {
     const auto& s = structures_[i];
     ImGui::PushID(static_cast<int>(i));
     ImGui::TableNextRow();
@@ -249,6 +270,10 @@ void ProjectScreens::draw_register() {
     ImGui::Text("%d", s.inspection_count);
     ImGui::TableNextColumn();
     ImGui::Text("%d", s.section_count);
+    ImGui::TableNextColumn();
+    ImGui::TextUnformatted(s.latest_visit.empty() ? "never" : s.latest_visit.c_str());
+    ImGui::TableNextColumn();
+    if (s.worst_severity) ImGui::Text("%d", *s.worst_severity); else ImGui::TextUnformatted("-");
     ImGui::PopID();
     if (open) show_structure(s.structure.fields.ref);
   }

@@ -10,6 +10,7 @@
 #include "app/gui/rings_fill_view.hpp"
 #include "app/gui/section_workspace.hpp"
 #include "app/model/project_session.hpp"
+#include "app/model/register_filter.hpp"
 
 namespace soffit::gui {
 
@@ -56,6 +57,7 @@ class ProjectScreens {
   char path_[512] = {};
   char search_[128] = {};
   std::vector<storage::StructureSummary> structures_;
+  app::RegisterFilter filter_;
   std::vector<storage::SearchHit> hits_;
   std::optional<storage::StructureDetail> detail_;
   bool visit_views_open_ = false;
