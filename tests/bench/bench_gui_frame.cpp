@@ -1,4 +1,5 @@
-// One frame of the section view with 100,000 plotted scan points, headless
+// One frame of the section view with 100,000 plotted scan points, and one of
+// the defects view with 200 defects on one barrel, headless
 // (a real ImGui context, no renderer): NewFrame, the view's drawing, Render.
 // Target (issue: the field app): under 16 ms. Baseline measured in the same
 // run: a frame of the same view with an 11-reading section, so the ratio is
@@ -8,11 +9,16 @@
 #include <imgui.h>
 
 #include <chrono>
+#include <filesystem>
 #include <cmath>
 #include <cstdio>
 #include <thread>
 
+#include "app/gui/defects_view.hpp"
 #include "app/gui/section_workspace.hpp"
+#include "app/model/inspection_data.hpp"
+#include "storage/demo_assets.hpp"
+#include "storage/demo_project.hpp"
 #include "app/gui/ui_theme.hpp"
 #include "geometry/analysis/random_normal.hpp"
 #include "tests/bench/keeping_reporter.hpp"
@@ -46,17 +52,10 @@ void frame(soffit::gui::SectionWorkspace& view) {
   ImGui::Render();
 }
 
+void setup_context();
+
 void run_frames(benchmark::State& state, int readings) {
-  ImGui::CreateContext();
-  ImGuiIO& io = ImGui::GetIO();
-  io.IniFilename = nullptr;
-  io.DisplaySize = ImVec2(1280, 800);
-  io.DeltaTime = 1.0f / 60.0f;
-  io.Fonts->AddFontDefault();
-  unsigned char* pixels = nullptr;
-  int w = 0, h = 0;
-  io.Fonts->GetTexDataAsRGBA32(&pixels, &w, &h);
-  soffit::gui::apply_style(soffit::gui::Theme::sunlight, 1.0f);
+  setup_context();
   {
     soffit::gui::SectionWorkspace view;
     std::vector<std::pair<std::string, soffit::SurveySheet>> sheets;
@@ -73,11 +72,69 @@ void run_frames(benchmark::State& state, int readings) {
   ImGui::DestroyContext();
 }
 
+void setup_context() {
+  ImGui::CreateContext();
+  ImGuiIO& io = ImGui::GetIO();
+  io.IniFilename = nullptr;
+  io.DisplaySize = ImVec2(1280, 800);
+  io.DeltaTime = 1.0f / 60.0f;
+  io.Fonts->AddFontDefault();
+  unsigned char* pixels = nullptr;
+  int w = 0, h = 0;
+  io.Fonts->GetTexDataAsRGBA32(&pixels, &w, &h);
+  soffit::gui::apply_style(soffit::gui::Theme::sunlight, 1.0f);
+}
+
+// The demo project with its S1 barrel filled up to 200 defects (invented).
+void defects_200_frame(benchmark::State& state) {
+  namespace fs = std::filesystem;
+  const fs::path dir = fs::temp_directory_path() / "soffit_bench_defects";
+  fs::remove_all(dir);
+  fs::create_directories(dir);
+  const std::string path = (dir / "demo.soffit").string();
+  soffit::storage::write_demo_project(path, soffit::storage::find_demo_sheets(), "bench");
+  soffit::storage::Project project = soffit::storage::Project::open(path, "bench");
+  {
+    soffit::app::InspectionData data;
+    data.load(project, "BVDC-ST-0417");
+    const auto barrels = data.barrels();
+    soffit::NormalSource noise(9);
+    const int existing = static_cast<int>(data.defects().size());
+    for (int k = existing; k < 200; ++k) {
+      const double s = barrels[0].arc_length_m * (0.5 + 0.45 * std::tanh(noise.next()));
+      const double y = barrels[0].width_m * (0.5 + 0.45 * std::tanh(noise.next()));
+      data.add_point_defect(barrels[0], "spalling", 1 + k % 5, s, y);
+    }
+  }
+  setup_context();
+  {
+    soffit::gui::DefectsView view;
+    view.open(project, "BVDC-ST-0417");
+    auto draw_frame = [&] {
+      ImGui::NewFrame();
+      ImGui::SetNextWindowPos(ImVec2(0, 0));
+      ImGui::SetNextWindowSize(ImGui::GetIO().DisplaySize);
+      ImGui::Begin("##main", nullptr, ImGuiWindowFlags_NoDecoration);
+      view.draw();
+      ImGui::End();
+      ImGui::Render();
+    };
+    draw_frame();
+    for (auto _ : state) draw_frame();
+    state.counters["defects"] = static_cast<double>(view.data().defects().size());
+    view.close();
+  }
+  ImGui::DestroyContext();
+  project.close();
+  fs::remove_all(dir);
+}
+
 void ordinary_section_frame(benchmark::State& state) { run_frames(state, 11); }
 void scan_100k_frame(benchmark::State& state) { run_frames(state, 100000); }
 
 BENCHMARK(ordinary_section_frame)->Unit(benchmark::kMillisecond);
 BENCHMARK(scan_100k_frame)->Unit(benchmark::kMillisecond);
+BENCHMARK(defects_200_frame)->Unit(benchmark::kMillisecond);
 
 }  // namespace
 
@@ -89,7 +146,11 @@ int main(int argc, char** argv) {
   benchmark::Shutdown();
   if (!reporter.ms.count("ordinary_section_frame") || !reporter.ms.count("scan_100k_frame")) return 0;
   const double base = reporter.ms["ordinary_section_frame"], scan = reporter.ms["scan_100k_frame"];
-  std::printf("ordinary frame %.3f ms, 100,000-point frame %.3f ms (%.1f x)\n", base, scan, scan / base);
-  std::printf("target 100,000-point frame < 16 ms: %s\n", scan < 16.0 ? "met" : "NOT met");
-  return scan < 16.0 ? 0 : 2;
+  const double defects = reporter.ms.count("defects_200_frame") ? reporter.ms["defects_200_frame"] : 0.0;
+  std::printf("ordinary frame %.3f ms, 100,000-point frame %.3f ms (%.1f x), 200-defect frame %.3f ms (%.1f x)\n",
+              base, scan, scan / base, defects, defects / base);
+  // The issue's frame holds both; they are separate screens here, so their sum is the bound.
+  std::printf("target 100,000 points + 200 defects < 16 ms: %.3f ms, %s\n", scan + defects,
+              scan + defects < 16.0 ? "met" : "NOT met");
+  return scan + defects < 16.0 ? 0 : 2;
 }
