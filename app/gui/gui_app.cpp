@@ -109,6 +109,10 @@ int run_gui(const GuiOptions& options) {
       state.screens.open_first_defects();
     } else if (options.view == "rings") {
       state.screens.open_first_rings_fill();
+    } else if (options.view == "change") {
+      state.screens.open_first_sections();
+      state.screens.screen = Screen::structure;
+      state.screens.start_comparison();
     } else if (options.view == "structure") {
       state.screens.open_first_sections();
       state.screens.screen = Screen::structure;
@@ -158,8 +162,9 @@ int run_gui(const GuiOptions& options) {
     ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
 
     ++frame;
-    const bool waiting = state.screens.screen == Screen::section &&
-                         (state.screens.sections.busy() || !state.screens.sections.analysis());
+    const bool waiting = (state.screens.screen == Screen::section &&
+                          (state.screens.sections.busy() || !state.screens.sections.analysis())) ||
+                         (state.screens.screen == Screen::compare && !state.screens.changes());
     settled = waiting ? 0 : settled + 1;
     // Capture once the fit has arrived and a few frames have settled the layout
     // (a dialog opened for the screenshot appears a frame after it is asked for).

@@ -3,6 +3,7 @@
 #include <imgui.h>
 
 #include <algorithm>
+#include <chrono>
 #include <filesystem>
 #include <fstream>
 
@@ -142,7 +143,8 @@ void ProjectScreens::draw_tabs() {
                       {"Structure", Screen::structure, detail_.has_value()},
                       {"Sections", Screen::section, !sections.empty()},
                       {"Defects", Screen::defects, visit_views_open_},
-                      {"Rings & fill", Screen::rings_fill, visit_views_open_}};
+                      {"Rings & fill", Screen::rings_fill, visit_views_open_},
+                      {"Change", Screen::compare, changes_.has_value() || comparing()}};
   bool first = true;  // the tabs start their own row under the top bar
   for (const Tab& t : tabs) {
     if (!first) ImGui::SameLine();
@@ -165,6 +167,7 @@ void ProjectScreens::draw_current() {
     case Screen::section: sections.draw(); break;
     case Screen::defects: defects.draw(); break;
     case Screen::rings_fill: rings_fill.draw(); break;
+    case Screen::compare: draw_compare(); break;
   }
 }
 
@@ -295,6 +298,12 @@ void ProjectScreens::draw_structure() {
   ImGui::TextUnformatted(spans.c_str());
   ImGui::Separator();
   ImGui::TextUnformatted("Visits");
+  if (detail_->inspections.size() >= 2) {
+    ImGui::SameLine();
+    const bool compare = ImGui::Button("Change between the last two visits");
+    probe("compare");
+    if (compare) start_comparison();
+  }
   for (size_t i = 0; i < detail_->inspections.size(); ++i) {
     const auto& v = detail_->inspections[i];
     ImGui::PushID(static_cast<int>(i));
@@ -338,6 +347,64 @@ void ProjectScreens::draw_structure() {
     ImGui::TextWrapped("%s", message_.c_str());
     ImGui::PopStyleColor();
   }
+}
+
+void ProjectScreens::start_comparison() {
+  if (!detail_ || detail_->inspections.size() < 2 || comparing()) return;
+  const auto& earlier = detail_->inspections[detail_->inspections.size() - 2];
+  const auto& later = detail_->inspections.back();
+  // Sheets are read here, on the UI thread; the fits run on a worker with the copies.
+  std::vector<app::SectionPair> pairs;
+  try {
+    for (const auto& a : earlier.sections)
+      for (const auto& b : later.sections)
+        if (a.span_label == b.span_label && a.label == b.label)
+          pairs.push_back({a.span_label, a.label, session_.section_sheet(a.id), session_.section_sheet(b.id)});
+  } catch (const std::exception& e) {
+    message_ = e.what();
+    return;
+  }
+  compare_title_ = "Change from " + earlier.date + " to " + later.date;
+  changes_.reset();
+  compare_job_ = std::async(std::launch::async, [pairs = std::move(pairs)] { return app::compare_sections(pairs); });
+  screen = Screen::compare;
+}
+
+void ProjectScreens::draw_compare() {
+  if (compare_job_.valid() && compare_job_.wait_for(std::chrono::seconds(0)) == std::future_status::ready)
+    changes_ = compare_job_.get();
+  ImGui::TextUnformatted(compare_title_.c_str());
+  ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().caution));
+  ImGui::TextWrapped("Measured differences of the fitted profiles, each with its standard uncertainty (both "
+                     "fits and 1 mm of datum per visit). Survey data, not an assessment: what a change means is "
+                     "for a qualified engineer under the local codes.");
+  ImGui::PopStyleColor();
+  if (!changes_) {
+    ImGui::TextUnformatted("Fitting both visits...");
+    return;
+  }
+  if (!ImGui::BeginTable("changes", 5, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
+  ImGui::TableSetupColumn("Section");
+  ImGui::TableSetupColumn("Rise before mm");
+  ImGui::TableSetupColumn("Rise after mm");
+  ImGui::TableSetupColumn("Change mm (u)");
+  ImGui::TableSetupColumn("Reading of the change");
+  ImGui::TableHeadersRow();
+  for (const app::SectionChange& c : *changes_) {
+    ImGui::TableNextRow();
+    ImGui::TableNextColumn();
+    ImGui::Text("%s %s", c.span.c_str(), c.section.c_str());
+    ImGui::TableNextColumn();
+    if (c.rise_earlier) ImGui::Text("%.1f (sd %.1f)", c.rise_earlier->value * 1000, c.rise_earlier->sd * 1000);
+    ImGui::TableNextColumn();
+    if (c.rise_later) ImGui::Text("%.1f (sd %.1f)", c.rise_later->value * 1000, c.rise_later->sd * 1000);
+    ImGui::TableNextColumn();
+    if (c.rise_earlier && c.rise_later)
+      ImGui::Text("%+.1f (%.1f)", c.rise_change_m * 1000, c.rise_change_u_m * 1000);
+    ImGui::TableNextColumn();
+    ImGui::TextUnformatted(c.verdict.c_str());
+  }
+  ImGui::EndTable();
 }
 
 void ProjectScreens::draw_sign_off(const storage::InspectionRecord& v) {

@@ -11,10 +11,13 @@
 #include "app/gui/section_workspace.hpp"
 #include "app/model/project_session.hpp"
 #include "app/model/register_filter.hpp"
+#include "app/model/visit_comparison.hpp"
+
+#include <future>
 
 namespace soffit::gui {
 
-enum class Screen { start, register_list, structure, section, defects, rings_fill };
+enum class Screen { start, register_list, structure, section, defects, rings_fill, compare };
 
 class ProjectScreens {
  public:
@@ -37,6 +40,10 @@ class ProjectScreens {
   void draw_tabs();
   void draw_current();
   app::ProjectSession& session() { return session_; }
+  // Fits the sections the last two visits share, on a worker, and shows the change.
+  void start_comparison();
+  bool comparing() const { return compare_job_.valid(); }
+  const std::optional<std::vector<app::SectionChange>>& changes() const { return changes_; }
 
  private:
   void open_path(const std::string& path, bool create);
@@ -48,6 +55,7 @@ class ProjectScreens {
   void open_visit_views(const std::string& date);  // defects and rings/fill of one visit
   void draw_sign_off(const storage::InspectionRecord& visit);
   void draw_sign_off_dialogs();
+  void draw_compare();
   void remember(const std::string& path);
 
   std::string assets_dir_, author_;
@@ -65,6 +73,9 @@ class ProjectScreens {
   std::string signing_visit_;        // inspection id awaiting confirmation
   bool open_issue_ = false, open_revise_ = false;
   bool refresh_structure_ = false;  // re-read the structure after a sign-off step
+  std::string compare_title_;
+  std::future<std::vector<app::SectionChange>> compare_job_;
+  std::optional<std::vector<app::SectionChange>> changes_;
   char revision_reason_[200] = {};
 };
 
