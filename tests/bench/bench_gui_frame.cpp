@@ -19,9 +19,9 @@
 #include "app/model/inspection_data.hpp"
 #include "storage/demo_assets.hpp"
 #include "storage/demo_project.hpp"
-#include "app/gui/ui_theme.hpp"
 #include "geometry/analysis/random_normal.hpp"
 #include "tests/bench/keeping_reporter.hpp"
+#include "tests/gui/headless_ui.hpp"
 
 namespace {
 
@@ -41,48 +41,22 @@ soffit::SurveySheet arch_sheet(int count) {
   return sheet;
 }
 
-void frame(soffit::gui::SectionWorkspace& view) {
-  view.poll();
-  ImGui::NewFrame();
-  ImGui::SetNextWindowPos(ImVec2(0, 0));
-  ImGui::SetNextWindowSize(ImGui::GetIO().DisplaySize);
-  ImGui::Begin("##main", nullptr, ImGuiWindowFlags_NoDecoration);
-  view.draw();
-  ImGui::End();
-  ImGui::Render();
-}
-
-void setup_context();
-
 void run_frames(benchmark::State& state, int readings) {
-  setup_context();
-  {
-    soffit::gui::SectionWorkspace view;
-    std::vector<std::pair<std::string, soffit::SurveySheet>> sheets;
-    sheets.emplace_back("scan", arch_sheet(readings));
-    view.load_sheets(std::move(sheets));
-    while (view.busy() || !view.analysis()) {  // the fit (all readings) finishes first
-      frame(view);
-      std::this_thread::sleep_for(std::chrono::milliseconds(5));
-    }
-    frame(view);
-    for (auto _ : state) frame(view);
-    state.counters["vertices"] = ImGui::GetDrawData()->TotalVtxCount;
+  soffit::gui::SectionWorkspace view;
+  soffit::test::HeadlessUi ui([&] {
+    view.poll();
+    view.draw();
+  });
+  std::vector<std::pair<std::string, soffit::SurveySheet>> sheets;
+  sheets.emplace_back("scan", arch_sheet(readings));
+  view.load_sheets(std::move(sheets));
+  while (view.busy() || !view.analysis()) {  // the fit (all readings) finishes first
+    ui.frame();
+    std::this_thread::sleep_for(std::chrono::milliseconds(5));
   }
-  ImGui::DestroyContext();
-}
-
-void setup_context() {
-  ImGui::CreateContext();
-  ImGuiIO& io = ImGui::GetIO();
-  io.IniFilename = nullptr;
-  io.DisplaySize = ImVec2(1280, 800);
-  io.DeltaTime = 1.0f / 60.0f;
-  io.Fonts->AddFontDefault();
-  unsigned char* pixels = nullptr;
-  int w = 0, h = 0;
-  io.Fonts->GetTexDataAsRGBA32(&pixels, &w, &h);
-  soffit::gui::apply_style(soffit::gui::Theme::sunlight, 1.0f);
+  ui.frame();
+  for (auto _ : state) ui.frame();
+  state.counters["vertices"] = ImGui::GetDrawData()->TotalVtxCount;
 }
 
 // The demo project with its S1 barrel filled up to 200 defects (invented).
@@ -106,25 +80,15 @@ void defects_200_frame(benchmark::State& state) {
       data.add_point_defect(barrels[0], "spalling", 1 + k % 5, s, y);
     }
   }
-  setup_context();
   {
     soffit::gui::DefectsView view;
+    soffit::test::HeadlessUi ui([&] { view.draw(); });
     view.open(project, "BVDC-ST-0417");
-    auto draw_frame = [&] {
-      ImGui::NewFrame();
-      ImGui::SetNextWindowPos(ImVec2(0, 0));
-      ImGui::SetNextWindowSize(ImGui::GetIO().DisplaySize);
-      ImGui::Begin("##main", nullptr, ImGuiWindowFlags_NoDecoration);
-      view.draw();
-      ImGui::End();
-      ImGui::Render();
-    };
-    draw_frame();
-    for (auto _ : state) draw_frame();
+    ui.frame();
+    for (auto _ : state) ui.frame();
     state.counters["defects"] = static_cast<double>(view.data().defects().size());
     view.close();
   }
-  ImGui::DestroyContext();
   project.close();
   fs::remove_all(dir);
 }
