@@ -9,8 +9,7 @@
 #include <optional>
 
 #include "app/model/inspection_data.hpp"
-#include "storage/demo_assets.hpp"
-#include "storage/demo_project.hpp"
+#include "tests/app/demo_project_fixture.hpp"
 #include "storage/inspection_observations.hpp"
 #include "storage/storage_error.hpp"
 
@@ -19,27 +18,8 @@ namespace fs = std::filesystem;
 
 namespace {
 
-constexpr const char* kDemoRef = "BVDC-ST-0417";
-
-struct DemoProject {
-  fs::path dir;
-  std::optional<storage::Project> project;
-  DemoProject() {
-    dir = fs::temp_directory_path() /
-          ("soffit-inspdata-" + std::to_string(std::chrono::steady_clock::now().time_since_epoch().count()));
-    fs::create_directories(dir);
-    const std::string path = (dir / "demo.soffit").string();
-    const std::string sheets = storage::find_demo_sheets();
-    REQUIRE_FALSE(sheets.empty());
-    storage::write_demo_project(path, sheets, "test");
-    project.emplace(storage::Project::open(path, "test"));
-  }
-  ~DemoProject() {
-    project.reset();
-    std::error_code ec;
-    fs::remove_all(dir, ec);
-  }
-};
+using test::DemoProject;
+using test::kDemoRef;
 
 app::DefectOnRecord with_ref(const std::string& ref) {
   app::DefectOnRecord d;

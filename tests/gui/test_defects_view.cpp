@@ -13,8 +13,7 @@
 #include "app/gui/defects_view.hpp"
 #include "app/gui/rings_fill_view.hpp"
 #include "headless_ui.hpp"
-#include "storage/demo_assets.hpp"
-#include "storage/demo_project.hpp"
+#include "tests/app/demo_project_fixture.hpp"
 #include "storage/inspection_observations.hpp"
 
 using namespace soffit;
@@ -22,31 +21,8 @@ namespace fs = std::filesystem;
 
 namespace {
 
-constexpr const char* kDemoRef = "BVDC-ST-0417";
-
-// A fresh copy of the demo project per test: the tests edit it.
-struct DemoProject {
-  fs::path dir;
-  std::optional<storage::Project> project;
-  DemoProject() {
-    dir = fs::temp_directory_path() /
-          ("soffit-defects-" + std::to_string(std::chrono::steady_clock::now().time_since_epoch().count()));
-    fs::create_directories(dir);
-    const std::string path = (dir / "demo.soffit").string();
-    const std::string sheets = storage::find_demo_sheets();
-    REQUIRE_FALSE(sheets.empty());
-    storage::write_demo_project(path, sheets, "test");
-    project.emplace(storage::Project::open(path, "test"));
-  }
-  ~DemoProject() {
-    project.reset();
-    std::error_code ec;
-    fs::remove_all(dir, ec);
-  }
-  size_t defects_in_db(const std::string& inspection_id) {
-    return storage::inspection_observations(project->db(), inspection_id).defects.size();
-  }
-};
+using test::DemoProject;
+using test::kDemoRef;
 
 }  // namespace
 
