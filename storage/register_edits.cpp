@@ -1,5 +1,8 @@
 #include "storage/register_edits.hpp"
 
+#include <locale>
+#include <sstream>
+
 #include "storage/row_stamp.hpp"
 #include "storage/sqlite_statement.hpp"
 
@@ -15,9 +18,38 @@ void require_changed(Connection& db, const char* what, const std::string& id) {
   if (db.changes() == 0) throw StorageError(ErrorKind::not_found, db.path(), std::string("no ") + what + " " + id);
 }
 
+[[noreturn]] void refuse(Connection& db, const std::string& message) {
+  throw StorageError(ErrorKind::invalid, db.path(), message);
+}
+
+std::string degrees(double v) {
+  std::ostringstream out;
+  out.imbue(std::locale::classic());  // a point for decimals whatever the user's locale
+  out << v;
+  return out.str();
+}
+
+// `own_id` is the structure being edited (empty for a new one): it may keep its own reference.
+void check_structure_fields(Connection& db, const StructureFields& f, const std::string& own_id) {
+  if (f.ref.find_first_not_of(" \t\r\n") == std::string::npos) refuse(db, "reference: must not be empty");
+  {
+    Statement same(db, "SELECT 1 FROM structure WHERE ref = ?1 AND id <> ?2");
+    same.bind_all(f.ref, own_id);
+    if (same.step()) refuse(db, "reference: " + f.ref + " is already used by another structure in this project");
+  }
+  // Written as !(inside) so that NaN is refused too.
+  if (f.latitude_deg && !(*f.latitude_deg >= -90.0 && *f.latitude_deg <= 90.0))
+    refuse(db, "latitude: " + degrees(*f.latitude_deg) + " is outside -90 to 90 degrees");
+  if (f.longitude_deg && !(*f.longitude_deg >= -180.0 && *f.longitude_deg <= 180.0))
+    refuse(db, "longitude: " + degrees(*f.longitude_deg) + " is outside -180 to 180 degrees");
+  if (f.span_count && *f.span_count < 1)
+    refuse(db, "number of spans: " + std::to_string(*f.span_count) + " is fewer than one");
+}
+
 }  // namespace
 
 std::string insert_structure(Connection& db, const std::string& author, const StructureFields& f) {
+  check_structure_fields(db, f, "");
   const std::string id = new_uuid();
   const std::string now = utc_now();
   Statement s(db,
@@ -28,6 +60,25 @@ std::string insert_structure(Connection& db, const std::string& author, const St
              text_or_null(f.carries), text_or_null(f.crosses), f.span_count, text_or_null(f.notes), now, author);
   s.run();
   return id;
+}
+
+void update_structure(Connection& db, const std::string& author, const std::string& structure_id,
+                      const StructureFields& f) {
+  {
+    Statement exists(db, "SELECT 1 FROM structure WHERE id = ?1");
+    exists.bind(1, structure_id);
+    if (!exists.step()) throw StorageError(ErrorKind::not_found, db.path(), "no structure " + structure_id);
+  }
+  check_structure_fields(db, f, structure_id);
+  Statement(db,
+            "UPDATE structure SET ref = ?2, name = ?3, latitude_deg = ?4, longitude_deg = ?5, "
+            "location_fictitious = ?6, carries = ?7, crosses = ?8, span_count = ?9, notes = ?10, "
+            "modified_at = ?11, author = ?12 WHERE id = ?1")
+      .bind_all(structure_id, f.ref, text_or_null(f.name), f.latitude_deg, f.longitude_deg, f.location_fictitious,
+                text_or_null(f.carries), text_or_null(f.crosses), f.span_count, text_or_null(f.notes), utc_now(),
+                author)
+      .run();
+  require_changed(db, "structure", structure_id);
 }
 
 void update_structure_notes(Connection& db, const std::string& author, const std::string& structure_id,

@@ -9,7 +9,17 @@
 
 namespace soffit::storage {
 
+// Both refuse bad fields before any SQL runs, with StorageError(invalid) whose
+// message starts with the field as the form names it ("reference: ...",
+// "latitude: ...", "longitude: ...", "number of spans: ..."): an empty or
+// duplicate reference, a latitude outside -90..90 or longitude outside
+// -180..180 degrees (WGS84), fewer than one span. The schema's CHECKs stay as
+// the last guard, but their SQLite text names no field a person would know.
 std::string insert_structure(Connection& db, const std::string& author, const StructureFields& f);
+// Rewrites every field of the structure (an empty text clears it) and stamps
+// modified_at and author; not_found if there is no such structure.
+void update_structure(Connection& db, const std::string& author, const std::string& structure_id,
+                      const StructureFields& f);
 void update_structure_notes(Connection& db, const std::string& author, const std::string& structure_id,
                             const std::string& notes);
 

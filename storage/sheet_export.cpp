@@ -39,9 +39,23 @@ struct Line {
   std::string text;
 };
 
-void emit_sorted(std::vector<Line>& lines, std::string& out) {
+// Lines written so far; with padding, blank lines fill the gap before a
+// line's own number (a line whose number is already passed follows on).
+struct Writer {
+  std::string out;
+  bool pad = false;
+  int written = 0;
+  void put(const std::string& text, int number = 0) {
+    if (pad)
+      for (; written + 1 < number; ++written) out += '\n';
+    out += text;
+    ++written;
+  }
+};
+
+void emit_sorted(std::vector<Line>& lines, Writer& out) {
   std::stable_sort(lines.begin(), lines.end(), [](const Line& a, const Line& b) { return a.number < b.number; });
-  for (const auto& l : lines) out += l.text;
+  for (const auto& l : lines) out.put(l.text, l.number);
   lines.clear();
 }
 
@@ -78,15 +92,16 @@ SurveySheet load_section_sheet(Connection& db, const std::string& section_id) {
   return sheet;
 }
 
-std::string write_sheet_text(const SurveySheet& sheet) {
+std::string write_sheet_text(const SurveySheet& sheet, bool keep_line_numbers) {
   const int first_row = sheet.raw_rows.empty() ? INT_MAX : sheet.raw_rows.front().line;
   std::vector<Line> lines;
-  std::string out;
+  Writer out;
+  out.pad = keep_line_numbers;
   std::vector<std::string> header;
   for (const auto& c : sheet.columns) header.push_back(c.name);
 
   if (sheet.form == SheetForm::soffit_sheet) {
-    out += "soffit-sheet," + std::to_string(sheet.format_version) + "\n";
+    out.put("soffit-sheet," + std::to_string(sheet.format_version) + "\n", 1);
     for (const auto& m : sheet.raw_metadata) {
       std::vector<std::string> cells{m.key};
       cells.insert(cells.end(), m.values.begin(), m.values.end());
@@ -95,18 +110,18 @@ std::string write_sheet_text(const SurveySheet& sheet) {
     for (const auto& c : sheet.comments)
       if (c.line < first_row) lines.push_back({c.line, c.text + "\n"});
     emit_sorted(lines, out);
-    out += "readings\n";
+    out.put("readings\n", first_row == INT_MAX ? 0 : first_row - 2);
   } else {
     for (const auto& c : sheet.comments)
       if (c.line < first_row) lines.push_back({c.line, c.text + "\n"});
     emit_sorted(lines, out);
   }
-  out += csv_line(header);
+  out.put(csv_line(header), first_row == INT_MAX ? 0 : first_row - 1);
   for (const auto& r : sheet.raw_rows) lines.push_back({r.line, csv_line(r.cells)});
   for (const auto& c : sheet.comments)
     if (c.line >= first_row) lines.push_back({c.line, c.text + "\n"});
   emit_sorted(lines, out);
-  return out;
+  return out.out;
 }
 
 std::string export_section_sheet(Connection& db, const std::string& section_id) {

@@ -3,7 +3,9 @@
 #include <imgui.h>
 
 #include <algorithm>
+#include <cmath>
 #include <set>
+#include <vector>
 
 #include "app/gui/ui_theme.hpp"
 
@@ -60,6 +62,27 @@ float severity_thickness(int severity, float font_size) {
   return font_size * (0.08f + 0.04f * static_cast<float>(std::clamp(severity, 1, 5)));
 }
 
+float area_outline_thickness(float font_size) { return font_size * 0.14f; }
+
+void draw_area_fill(ImDrawList* draw, const ImVec2* ring, int count, unsigned int colour) {
+  if (count < 3) return;
+  const unsigned int fill = (colour & ~IM_COL32_A_MASK) | (IM_COL32(0, 0, 0, 56) & IM_COL32_A_MASK);
+  float top = ring[0].y, bottom = ring[0].y;
+  for (int i = 1; i < count; ++i) top = std::min(top, ring[i].y), bottom = std::max(bottom, ring[i].y);
+  std::vector<float> crossings;
+  // Rows 2 px apart drawn 2 px thick: solid, and even-odd so holes stay open.
+  for (float y = std::floor(top) + 1.0f; y < bottom; y += 2.0f) {
+    crossings.clear();
+    for (int i = 0, j = count - 1; i < count; j = i++) {
+      const ImVec2 a = ring[i], b = ring[j];
+      if ((a.y > y) != (b.y > y)) crossings.push_back(a.x + (y - a.y) * (b.x - a.x) / (b.y - a.y));
+    }
+    std::sort(crossings.begin(), crossings.end());
+    for (size_t k = 0; k + 1 < crossings.size(); k += 2)
+      draw->AddLine(ImVec2(crossings[k], y), ImVec2(crossings[k + 1], y), fill, 2.0f);
+  }
+}
+
 void draw_defect_legend() {
   ImDrawList* draw = ImGui::GetWindowDrawList();
   const float f = ImGui::GetFontSize();
@@ -80,14 +103,24 @@ void draw_defect_legend() {
     if (kind == 1)
       draw->AddLine(ImVec2(c.x - f * 0.7f, c.y + f * 0.3f), ImVec2(c.x + f * 0.7f, c.y - f * 0.3f), ink,
                     severity_thickness(3, f));
-    if (kind == 2) draw->AddRect(ImVec2(c.x - f * 0.7f, c.y - f * 0.45f), ImVec2(c.x + f * 0.7f, c.y + f * 0.45f), ink, 0, 0, 2.0f);
+    if (kind == 2) {
+      const ImVec2 ring[] = {ImVec2(c.x - f * 0.7f, c.y - f * 0.45f), ImVec2(c.x + f * 0.7f, c.y - f * 0.45f),
+                             ImVec2(c.x + f * 0.7f, c.y + f * 0.45f), ImVec2(c.x - f * 0.7f, c.y + f * 0.45f)};
+      draw_area_fill(draw, ring, 4, ink);
+      draw->AddPolyline(ring, 4, ink, true, area_outline_thickness(f));
+    }
+    if (kind == 3) {
+      draw->AddLine(ImVec2(c.x - f * 0.7f, c.y + f * 0.3f), ImVec2(c.x + f * 0.7f, c.y - f * 0.3f), ink, f * 0.15f);
+      draw->AddCircle(ImVec2(c.x - f * 0.7f, c.y + f * 0.3f), f * 0.3f, ink, 0, 2.0f);
+    }
     ImGui::Dummy(ImVec2(f * 1.8f, f * 1.2f));
     ImGui::SameLine();
     ImGui::TextUnformatted(meaning);
   };
-  row(0, "point defect: a dot");
-  row(1, "crack or other line: a polyline");
-  row(2, "area: its outline");
+  row(0, "point defect: a dot (Point: tap where it is)");
+  row(1, "crack or other line: a polyline, thicker for a higher severity (Crack line: drag along it)");
+  row(2, "area: its outline over a light fill (Area outline: drag round it, or tap its corners)");
+  row(3, "in ink (black in the sunlight theme): a line being drawn, or the halo of the selected defect");
   // Severity: the dot grows from 1 to 5 and the number follows the reference.
   const ImVec2 p = ImGui::GetCursorScreenPos();
   for (int s = 1; s <= 5; ++s) {
@@ -99,6 +132,10 @@ void draw_defect_legend() {
   ImGui::TextUnformatted("severity 1 to 5 (soffit-1-5), also written after the reference: D05 ·3");
   ImGui::TextWrapped("1 noted; 2 slight, recheck next visit; 3 moderate, monitor; 4 severe, refer to the engineer; "
                      "5 urgent, escalate from site.");
+  ImGui::TextWrapped("Barrel: s along the intrados from the named springing, y from the named face, seen looking up. "
+                     "Walls, piers and abutments: x along the span, z up; a downstream face is drawn as seen from "
+                     "downstream, so its x = 0 end is on the right. Lengths (lines) and areas are worked out from "
+                     "the drawn points and stored as measured facts, apart from the severity.");
 }
 
 }  // namespace soffit::gui

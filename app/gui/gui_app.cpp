@@ -18,6 +18,8 @@
 #include "app/gui/legend.hpp"
 #include "app/gui/screenshot.hpp"
 #include "app/gui/project_screens.hpp"
+#include "app/gui/gl_texture.hpp"
+#include "app/gui/photo_viewer.hpp"
 #include "app/gui/ui_theme.hpp"
 
 namespace soffit::gui {
@@ -38,6 +40,7 @@ struct AppState {
   bool restyle = true;
   bool show_frame_time = false;
   ProjectScreens screens{kAssets, author_name()};
+  PhotoViewer photos{make_gl_texture_factory()};  // drawn instead of the screens while open
 };
 
 void draw_top_bar(AppState& s) {
@@ -107,6 +110,13 @@ int run_gui(const GuiOptions& options) {
       state.screens.screen = Screen::start;
     } else if (options.view == "defects") {
       state.screens.open_first_defects();
+    } else if (options.view == "elevation") {
+      state.screens.open_first_defects();
+      state.screens.defects.show_for_screenshot("S1", "DS spandrel", "D03");
+    } else if (options.view == "photos") {
+      state.screens.open_first_defects();
+      if (auto* project = state.screens.session().project(); project && state.screens.defects.data().loaded())
+        state.photos.open(*project, state.screens.defects.data().data().inspection.id);
     } else if (options.view == "rings") {
       state.screens.open_first_rings_fill();
     } else if (options.view == "change") {
@@ -116,6 +126,8 @@ int run_gui(const GuiOptions& options) {
     } else if (options.view == "structure") {
       state.screens.open_first_sections();
       state.screens.screen = Screen::structure;
+    } else if (options.view == "add-structure") {
+      state.screens.open_add_structure();
     } else if (options.view != "register") {
       state.screens.open_first_sections();
       if (options.view != "section") state.screens.sections.show_dialog_for_screenshot(options.view);
@@ -125,7 +137,7 @@ int run_gui(const GuiOptions& options) {
   const bool capturing = !options.screenshot_path.empty();
   int frame = 0, settled = 0, exit_code = 0;
   while (!glfwWindowShouldClose(window)) {
-    if (capturing || state.screens.sections.busy())
+    if (capturing || state.screens.sections.busy() || state.photos.busy())
       glfwPollEvents();
     else
       glfwWaitEventsTimeout(0.5);
@@ -137,6 +149,7 @@ int run_gui(const GuiOptions& options) {
       state.restyle = false;
     }
     state.screens.sections.poll();
+    state.photos.poll();
 
     ImGui_ImplOpenGL3_NewFrame();
     ImGui_ImplGlfw_NewFrame();
@@ -149,7 +162,10 @@ int run_gui(const GuiOptions& options) {
     draw_top_bar(state);
     state.screens.draw_tabs();
     ImGui::Separator();
-    state.screens.draw_current();
+    if (state.photos.is_open())
+      state.photos.draw();
+    else
+      state.screens.draw_current();
     ImGui::End();
     ImGui::Render();
 
@@ -165,7 +181,7 @@ int run_gui(const GuiOptions& options) {
     const bool waiting = (state.screens.screen == Screen::section &&
                           (state.screens.sections.busy() || !state.screens.sections.analysis())) ||
                          (state.screens.screen == Screen::compare && !state.screens.changes());
-    settled = waiting ? 0 : settled + 1;
+    settled = waiting || state.photos.busy() ? 0 : settled + 1;
     // Capture once the fit has arrived and a few frames have settled the layout
     // (a dialog opened for the screenshot appears a frame after it is asked for).
     if (capturing && ((frame >= options.screenshot_frames && settled >= 4) || frame > 600)) {
@@ -178,6 +194,7 @@ int run_gui(const GuiOptions& options) {
     glfwSwapBuffers(window);
   }
 
+  state.photos.close();  // its textures go while the GL context exists
   ImGui_ImplOpenGL3_Shutdown();
   ImGui_ImplGlfw_Shutdown();
   ImGui::DestroyContext();

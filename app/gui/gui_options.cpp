@@ -21,10 +21,15 @@ bool parse_gui_options(int argc, char** argv, GuiOptions& options, std::string& 
       const char* v = value();
       if (!v) return error = "--view needs a view name", false;
       options.view = v;
-      static const char* views[] = {"start", "register", "structure", "section", "keypad", "exclude", "defects", "rings", "change"};
-      if (std::find(std::begin(views), std::end(views), options.view) == std::end(views))
-        return error = "unknown view '" + options.view +
-                       "' (views: start, register, structure, section, keypad, exclude, defects, rings, change)", false;
+      // One list for the check and the message (the README lists the same names).
+      static const char* views[] = {"start",   "register", "add-structure", "structure", "section", "keypad",
+                                    "keyboard", "exclude", "defects",       "elevation", "photos",  "rings",
+                                    "change"};
+      if (std::find(std::begin(views), std::end(views), options.view) == std::end(views)) {
+        std::string names;
+        for (const char* v : views) names += (names.empty() ? "" : ", ") + std::string(v);
+        return error = "unknown view '" + options.view + "' (views: " + names + ")", false;
+      }
     } else if (arg == "--scale") {
       const char* v = value();
       const std::string_view text = v ? v : "";

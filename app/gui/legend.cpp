@@ -2,6 +2,7 @@
 
 #include <imgui.h>
 
+#include "app/gui/defect_marks.hpp"
 #include "app/gui/ui_theme.hpp"
 
 namespace soffit::gui {
@@ -39,6 +40,11 @@ void draw_legend_popup(const char* popup_id) {
   entry(Mark::bar, c.residual_above, "reading above the fitted intrados (bar drawn x50)");
   entry(Mark::bar, c.residual_below, "reading below the fitted intrados: sag or flattening (bar drawn x50)");
   ImGui::TextWrapped("In the readings table a departure beyond twice the reading's precision is shown in the bar colours.");
+  // The defects view's marks, so one legend explains every screen.
+  ImGui::Separator();
+  ImGui::TextUnformatted("Defects (barrel and elevations): colour by family, shape by what was drawn");
+  draw_defect_legend();
+  ImGui::Separator();
   ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(c.caution));
   ImGui::TextUnformatted("Caution text: survey data, not an assessment.");
   ImGui::PopStyleColor();

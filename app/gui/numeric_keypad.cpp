@@ -17,6 +17,11 @@ void NumericKeypad::begin(const std::string& title, double initial, int decimals
   text_ = buf;
 }
 
+void NumericKeypad::begin_text(const std::string& title, const std::string& initial) {
+  title_ = title;
+  text_ = initial;
+}
+
 void NumericKeypad::press(char key) {
   if (key == '<') {
     if (!text_.empty()) text_.pop_back();
@@ -59,12 +64,16 @@ std::optional<double> NumericKeypad::draw() {
   ImGui::BeginDisabled(!valid);
   const bool ok = ImGui::Button("OK", ImVec2(key * 1.5f, key * 0.8f));
   probe("key:ok");
-  ImGui::EndDisabled();
   ImGui::SameLine();
-  const bool cancel = ImGui::Button("Cancel", ImVec2(key * 1.5f, key * 0.8f));
+  // Next keeps a hand on the keypad down a column of readings, as on a booking sheet.
+  const bool next = ImGui::Button("Next", ImVec2(key * 1.5f, key * 0.8f));
+  probe("key:next");
+  ImGui::EndDisabled();
+  const bool cancel = ImGui::Button("Cancel", ImVec2(key * 3 + ImGui::GetStyle().ItemSpacing.x * 2, key * 0.7f));
   probe("key:cancel");
-  if (ok && valid) {
+  if ((ok || next) && valid) {
     result = value;
+    next_ = next;
     ImGui::CloseCurrentPopup();
   } else if (cancel) {
     ImGui::CloseCurrentPopup();

@@ -10,9 +10,13 @@ class NumericKeypad {
  public:
   // Starts editing `initial` (as text) under `title`; call before opening the popup.
   void begin(const std::string& title, double initial, int decimals);
-  // Draws the keypad if its popup is open. Returns the value when OK is
-  // pressed with a valid number; empty otherwise (also on Cancel).
+  // Starts editing a cell's text as typed (empty for a new cell).
+  void begin_text(const std::string& title, const std::string& initial);
+  // Draws the keypad if its popup is open. Returns the value when OK (or
+  // Next) is pressed with a valid number; empty otherwise (also on Cancel).
   std::optional<double> draw();
+  // Whether the last value came with Next: go on to the next reading's cell.
+  bool next_pressed() const { return next_; }
   const std::string& popup_id() const { return title_; }
   const std::string& text() const { return text_; }
 
@@ -20,6 +24,7 @@ class NumericKeypad {
   void press(char key);
   std::string title_ = "Enter value";
   std::string text_;
+  bool next_ = false;
 };
 
 }  // namespace soffit::gui

@@ -4,9 +4,12 @@
 
 #include <algorithm>
 #include <chrono>
+#include <ctime>
 #include <filesystem>
 #include <fstream>
 
+#include "app/gui/touch_scroll.hpp"
+#include "app/model/section_store.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 #include "exports/fit_report_json.hpp"
@@ -24,6 +27,26 @@ bool big_button(const char* label, const std::string& probe_name) {
   const bool pressed = ImGui::Button(label, ImVec2(ImGui::GetFontSize() * 18, ImGui::GetFrameHeight() * 1.4f));
   probe(probe_name);
   return pressed;
+}
+
+std::string clock_now() {
+  const std::time_t t = std::time(nullptr);
+  std::tm local{};
+  localtime_r(&t, &local);
+  char buf[16];
+  std::strftime(buf, sizeof buf, "%H:%M", &local);
+  return buf;
+}
+
+// Where a change went, in the words of the standards: the project file, by name.
+std::string saved_to(const std::string& project_path, const std::string& what) {
+  return what + ". Saved to the project file " + std::filesystem::path(project_path).filename().string() + " at " +
+         clock_now() + ".";
+}
+
+// Lists leave room under them for their paging buttons, but never shrink to nothing.
+float list_height(float reserve_below) {
+  return std::max(ImGui::GetContentRegionAvail().y - reserve_below, ImGui::GetFrameHeight() * 5);
 }
 
 }  // namespace
@@ -56,6 +79,8 @@ void ProjectScreens::open_path(const std::string& path, bool create) {
     hits_.clear();
     detail_.reset();
     message_.clear();
+    saved_note_.clear();
+    highlight_ref_.clear();
     remember(path);
     screen = Screen::register_list;
   } catch (const std::exception& e) {
@@ -72,6 +97,8 @@ void ProjectScreens::open_demo() {
     session_.open_demo(path, assets_dir_ + "/sheets", author_);
     structures_ = session_.structures();
     message_.clear();
+    saved_note_.clear();
+    highlight_ref_.clear();
     remember(path);
     screen = Screen::register_list;
   } catch (const std::exception& e) {
@@ -106,6 +133,7 @@ void ProjectScreens::open_visit_views(const std::string& date) {
   defects.open(*session_.project(), detail_->structure.fields.ref, date);
   rings_fill.open(*session_.project(), detail_->structure.fields.ref, date);
   visit_views_open_ = true;
+  visit_views_date_ = date;
 }
 
 void ProjectScreens::show_structure(const std::string& ref) {
@@ -114,6 +142,11 @@ void ProjectScreens::show_structure(const std::string& ref) {
 }
 
 void ProjectScreens::open_sections(const storage::InspectionRecord& visit) {
+  reload_sections(visit);
+  screen = Screen::section;
+}
+
+void ProjectScreens::reload_sections(const storage::InspectionRecord& visit) {
   std::vector<std::pair<std::string, SurveySheet>> sheets;
   section_ids_.clear();
   for (const storage::SectionRecord& s : visit.sections) {
@@ -129,7 +162,14 @@ void ProjectScreens::open_sections(const storage::InspectionRecord& visit) {
   sections.set_exclusion_store([this](size_t section, size_t reading, const std::string& reason) {
     session_.set_reading_exclusion(section_ids_.at(section), reading, reason);
   });
-  screen = Screen::section;
+  if (visit.status == "issued")
+    sections.set_locked("Issued visit: read-only. A correction is a new revision (Structure screen, New revision).");
+  // Typed cells and new readings too, each as one undoable edit of the project.
+  sections.set_rows_store([this](size_t section, const SurveySheet& sheet, const std::string& label) {
+    if (storage::Project* project = session_.project()) app::save_section(*project, section_ids_.at(section), sheet, label);
+  });
+  sections_visit_id_ = visit.id;
+  sections_structure_id_ = detail_ ? detail_->structure.id : std::string();
 }
 
 void ProjectScreens::draw_tabs() {
@@ -206,8 +246,114 @@ void ProjectScreens::draw_start() {
   }
 }
 
+void ProjectScreens::draw_edit_bar(bool on_structure) {
+  if (on_structure) {
+    const bool edit = ImGui::Button("Edit details");
+    probe("edit-structure");
+    if (edit && detail_) structure_form_.open_edit(detail_->structure);
+  } else {
+    const bool add = ImGui::Button("Add structure");
+    probe("add-structure");
+    if (add) structure_form_.open_new();
+  }
+  // The project's own journal: what is undone is named on the button, and it
+  // may be an edit made on another screen.
+  const std::string undo_label = session_.undo_label(), redo_label = session_.redo_label();
+  ImGui::SameLine();
+  ImGui::BeginDisabled(undo_label.empty());
+  // "###": the same button whatever step it names.
+  const bool undo = ImGui::Button(((undo_label.empty() ? "Undo" : "Undo: " + undo_label) + "###undo").c_str());
+  probe("undo");
+  ImGui::EndDisabled();
+  ImGui::SameLine();
+  ImGui::BeginDisabled(redo_label.empty());
+  const bool redo = ImGui::Button(((redo_label.empty() ? "Redo" : "Redo: " + redo_label) + "###redo").c_str());
+  probe("redo");
+  ImGui::EndDisabled();
+  // Ctrl+Z / Ctrl+Y (or Ctrl+Shift+Z) when no text is being typed and no dialog is up:
+  // a text field has its own undo, and a dialog's edit is not finished yet.
+  const ImGuiIO& io = ImGui::GetIO();
+  const bool keys_free = io.KeyCtrl && !io.WantTextInput && !structure_form_.is_open() &&
+                         !ImGui::IsPopupOpen("", ImGuiPopupFlags_AnyPopupId | ImGuiPopupFlags_AnyPopupLevel);
+  const bool key_z = keys_free && ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Z), false);
+  const bool key_y = keys_free && ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Y), false);
+  if ((undo || (key_z && !io.KeyShift)) && !undo_label.empty()) undo_or_redo(true);
+  else if ((redo || key_y || (key_z && io.KeyShift)) && !redo_label.empty()) undo_or_redo(false);
+  if (!saved_note_.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().reading));
+    ImGui::TextWrapped("%s", saved_note_.c_str());
+    ImGui::PopStyleColor();
+    probe("saved-note");
+  }
+}
+
+void ProjectScreens::undo_or_redo(bool undo) {
+  const std::string step = undo ? session_.undo_label() : session_.redo_label();
+  try {
+    if (!(undo ? session_.undo() : session_.redo())) return;
+    saved_note_ = saved_to(session_.path(), (undo ? "Undone: " : "Redone: ") + step);
+    message_.clear();
+  } catch (const std::exception& e) {
+    message_ = e.what();  // the journal refused (an issued visit, say): the file is as it was
+  }
+  reload_after_change(true);
+}
+
+void ProjectScreens::reload_after_change(bool sections_too) {
+  structures_ = session_.structures();
+  hits_ = search_[0] ? session_.search(search_) : std::vector<storage::SearchHit>{};
+  // Structures are found again by their key: the step may have changed a reference.
+  const auto by_id = [&](const std::string& id) -> std::optional<storage::StructureDetail> {
+    for (const auto& s : structures_)
+      if (s.structure.id == id) return session_.structure(s.structure.fields.ref);
+    return std::nullopt;
+  };
+  if (detail_) detail_ = by_id(detail_->structure.id);
+  if (detail_ && visit_views_open_) {
+    open_visit_views(visit_views_date_);
+  } else if (!detail_) {
+    defects.close();
+    rings_fill.close();
+    visit_views_open_ = false;
+    if (screen == Screen::structure) screen = Screen::register_list;
+  }
+  // A journal step may be a reading's (its label is whatever the person named
+  // it), so the sections are read again; every change in them is already in
+  // the file, so nothing but the view's place and fit is lost.
+  if (!sections_too || sections_visit_id_.empty()) return;
+  const std::optional<storage::StructureDetail> owner = by_id(sections_structure_id_);
+  if (owner)
+    for (const auto& v : owner->inspections)
+      if (v.id == sections_visit_id_) return reload_sections(v);
+  sections.load_sheets({});  // the visit is gone with the step: show nothing rather than rows that are not there
+  sections_visit_id_.clear();
+}
+
+void ProjectScreens::draw_structure_form() {
+  const std::string id = structure_form_.structure_id();
+  const bool saved = structure_form_.draw([&](const storage::StructureFields& f) {
+    if (id.empty())
+      session_.add_structure(f);
+    else
+      session_.update_structure(id, f);
+  });
+  if (!saved) return;
+  const std::string& ref = structure_form_.saved().ref;
+  saved_note_ = saved_to(session_.path(), (id.empty() ? "Added structure " : "Saved the details of ") + ref);
+  message_.clear();
+  highlight_ref_ = ref;
+  scroll_to_highlight_ = true;
+  reload_after_change(false);  // a structure's details hold no readings
+}
+
 void ProjectScreens::draw_register() {
   ImGui::Text("Register: %s", session_.path().c_str());
+  draw_edit_bar(false);
+  if (!message_.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().residual_below));
+    ImGui::TextWrapped("%s", message_.c_str());
+    ImGui::PopStyleColor();
+  }
   ImGui::SetNextItemWidth(ImGui::GetFontSize() * 20);
   const bool enter = ImGui::InputText("##search", search_, sizeof search_, ImGuiInputTextFlags_EnterReturnsTrue);
   ImGui::SameLine();
@@ -248,55 +394,83 @@ void ProjectScreens::draw_register() {
   }
   const std::vector<size_t> shown = app::filter_register(structures_, filter_, app::today_iso());
   ImGui::Text("%zu of %zu structures", shown.size(), structures_.size());
-  if (!ImGui::BeginTable("structures", 7, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
-  ImGui::TableSetupColumn("Reference");
-  ImGui::TableSetupColumn("Name");
-  ImGui::TableSetupColumn("Spans");
-  ImGui::TableSetupColumn("Visits");
-  ImGui::TableSetupColumn("Sections");
-  ImGui::TableSetupColumn("Last visit");
-  ImGui::TableSetupColumn("Worst severity");
-  ImGui::TableHeadersRow();
-  for (size_t i : shown) {
-    const auto& s = structures_[i];
-    ImGui::PushID(static_cast<int>(i));
-    ImGui::TableNextRow();
-    ImGui::TableNextColumn();
-    const bool open = ImGui::Selectable(s.structure.fields.ref.c_str(), false, ImGuiSelectableFlags_SpanAllColumns,
-                                        ImVec2(0, ImGui::GetFrameHeight()));
-    probe("structure:" + s.structure.fields.ref);
-    ImGui::TableNextColumn();
-    ImGui::TextUnformatted(s.structure.fields.name.c_str());
-    ImGui::TableNextColumn();
-    ImGui::Text("%d", s.span_count);
-    ImGui::TableNextColumn();
-    ImGui::Text("%d", s.inspection_count);
-    ImGui::TableNextColumn();
-    ImGui::Text("%d", s.section_count);
-    ImGui::TableNextColumn();
-    ImGui::TextUnformatted(s.latest_visit.empty() ? "never" : s.latest_visit.c_str());
-    ImGui::TableNextColumn();
-    if (s.worst_severity) ImGui::Text("%d", *s.worst_severity); else ImGui::TextUnformatted("-");
-    ImGui::PopID();
-    if (open) show_structure(s.structure.fields.ref);
+  bool highlight_shown = highlight_ref_.empty();
+  // The header row stays put while the rows scroll (by finger, wheel or the page buttons).
+  const ImGuiTableFlags flags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_ScrollY;
+  if (ImGui::BeginTable("structures", 7, flags, ImVec2(0, list_height(ImGui::GetFrameHeightWithSpacing())))) {
+    ImGui::TableSetupScrollFreeze(0, 1);
+    ImGui::TableSetupColumn("Reference");
+    ImGui::TableSetupColumn("Name");
+    ImGui::TableSetupColumn("Spans");
+    ImGui::TableSetupColumn("Visits");
+    ImGui::TableSetupColumn("Sections");
+    ImGui::TableSetupColumn("Last visit");
+    ImGui::TableSetupColumn("Worst severity");
+    ImGui::TableHeadersRow();
+    std::string open_ref;
+    for (size_t i : shown) {
+      const auto& s = structures_[i];
+      const bool marked = s.structure.fields.ref == highlight_ref_;
+      ImGui::PushID(static_cast<int>(i));
+      ImGui::TableNextRow();
+      ImGui::TableNextColumn();
+      if (ImGui::Selectable(s.structure.fields.ref.c_str(), marked, ImGuiSelectableFlags_SpanAllColumns,
+                            ImVec2(0, ImGui::GetFrameHeight())))
+        open_ref = s.structure.fields.ref;
+      probe("structure:" + s.structure.fields.ref);
+      if (marked) {
+        highlight_shown = true;
+        if (scroll_to_highlight_) ImGui::SetScrollHereY(0.5f);
+        scroll_to_highlight_ = false;
+      }
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(s.structure.fields.name.c_str());
+      ImGui::TableNextColumn();
+      ImGui::Text("%d", s.span_count);
+      ImGui::TableNextColumn();
+      ImGui::Text("%d", s.inspection_count);
+      ImGui::TableNextColumn();
+      ImGui::Text("%d", s.section_count);
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(s.latest_visit.empty() ? "never" : s.latest_visit.c_str());
+      ImGui::TableNextColumn();
+      if (s.worst_severity) ImGui::Text("%d", *s.worst_severity); else ImGui::TextUnformatted("-");
+      ImGui::PopID();
+    }
+    drag_to_scroll();  // inside the table's own scrolling window
+    ImGui::EndTable();
+    paging_buttons("register");
+    if (!open_ref.empty()) show_structure(open_ref);  // after the table: it replaces the rows drawn from
   }
-  ImGui::EndTable();
+  if (!highlight_shown) {
+    ImGui::SameLine();
+    ImGui::AlignTextToFramePadding();
+    ImGui::Text("%s is hidden by the filters.", highlight_ref_.c_str());
+  }
+  draw_structure_form();
 }
 
 void ProjectScreens::draw_structure() {
   if (!detail_) return;
-  const auto& f = detail_->structure.fields;
-  ImGui::Text("%s  %s", f.ref.c_str(), f.name.c_str());
+  ImGui::Text("%s  %s", detail_->structure.fields.ref.c_str(), detail_->structure.fields.name.c_str());
+  draw_edit_bar(true);
+  if (!detail_) return;  // an undo just took the structure away
+  const auto& f = detail_->structure.fields;  // read after the bar: an undo there re-reads the structure
   if (!f.carries.empty() || !f.crosses.empty())
-    ImGui::TextWrapped("Carries %s over %s", f.carries.c_str(), f.crosses.c_str());
+    ImGui::TextWrapped("Carries %s over %s", f.carries.empty() ? "-" : f.carries.c_str(),
+                       f.crosses.empty() ? "-" : f.crosses.c_str());
   if (f.latitude_deg && f.longitude_deg)
     ImGui::Text("Location %.5f, %.5f%s", *f.latitude_deg, *f.longitude_deg,
                 f.location_fictitious ? "  (fictitious)" : "");
   if (!f.notes.empty()) ImGui::TextWrapped("%s", f.notes.c_str());
   std::string spans = "Spans:";
   for (const auto& s : detail_->spans) spans += " " + (s.label.empty() ? std::to_string(s.index) : s.label);
+  // The register's count is the owner's; the spans are those surveyed. Say so when they differ.
+  if (f.span_count && static_cast<size_t>(*f.span_count) != detail_->spans.size())
+    spans += "  (the register says " + std::to_string(*f.span_count) + ")";
   ImGui::TextUnformatted(spans.c_str());
   ImGui::Separator();
+  ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Visits");
   if (detail_->inspections.size() >= 2) {
     ImGui::SameLine();
@@ -304,9 +478,13 @@ void ProjectScreens::draw_structure() {
     probe("compare");
     if (compare) start_comparison();
   }
+  const float message_room = message_.empty() ? 0.0f : ImGui::GetTextLineHeightWithSpacing() * 3;
+  ImGui::BeginChild("visits", ImVec2(0, list_height(ImGui::GetFrameHeightWithSpacing() + message_room)));
+  const storage::InspectionRecord* to_open = nullptr;
   for (size_t i = 0; i < detail_->inspections.size(); ++i) {
     const auto& v = detail_->inspections[i];
     ImGui::PushID(static_cast<int>(i));
+    ImGui::AlignTextToFramePadding();
     ImGui::Text("%s  %s  %s  revision %d  (%s)", v.date.c_str(), v.kind.c_str(), v.inspector.c_str(), v.revision,
                 v.status.c_str());
     ImGui::SameLine();
@@ -334,8 +512,12 @@ void ProjectScreens::draw_structure() {
       ImGui::BulletText("%s %s: %s, %d readings (%d excluded)", s.span_label.c_str(), s.label.c_str(),
                         s.method.c_str(), s.reading_count, s.excluded_count);
     ImGui::PopID();
-    if (open) open_sections(v);
+    if (open) to_open = &v;
   }
+  drag_to_scroll();
+  ImGui::EndChild();
+  paging_buttons("visits");
+  if (to_open) open_sections(*to_open);
   export_dialog.draw();
   draw_sign_off_dialogs();
   if (refresh_structure_) {
@@ -347,6 +529,7 @@ void ProjectScreens::draw_structure() {
     ImGui::TextWrapped("%s", message_.c_str());
     ImGui::PopStyleColor();
   }
+  draw_structure_form();
 }
 
 void ProjectScreens::start_comparison() {

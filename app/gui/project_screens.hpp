@@ -9,6 +9,7 @@
 #include "app/gui/export_dialog.hpp"
 #include "app/gui/rings_fill_view.hpp"
 #include "app/gui/section_workspace.hpp"
+#include "app/gui/structure_form.hpp"
 #include "app/model/project_session.hpp"
 #include "app/model/register_filter.hpp"
 #include "app/model/visit_comparison.hpp"
@@ -44,6 +45,11 @@ class ProjectScreens {
   void start_comparison();
   bool comparing() const { return compare_job_.valid(); }
   const std::optional<std::vector<app::SectionChange>>& changes() const { return changes_; }
+  // The register's "Add structure" form, opened as if tapped (for the screenshot view).
+  void open_add_structure() { structure_form_.open_new(); }
+  const StructureForm& structure_form() const { return structure_form_; }
+  // The last change saved or undone, and where it went; empty before one.
+  const std::string& saved_note() const { return saved_note_; }
 
  private:
   void open_path(const std::string& path, bool create);
@@ -57,6 +63,14 @@ class ProjectScreens {
   void draw_sign_off_dialogs();
   void draw_compare();
   void remember(const std::string& path);
+  // Add / edit details / undo / redo and where the last change went, on the
+  // register and structure screens.
+  void draw_edit_bar(bool on_structure);
+  void draw_structure_form();
+  void undo_or_redo(bool undo);
+  // Re-reads what the screens show after the project changed underneath them.
+  void reload_after_change(bool sections_too);
+  void reload_sections(const storage::InspectionRecord& visit);
 
   std::string assets_dir_, author_;
   app::ProjectSession session_;
@@ -77,6 +91,13 @@ class ProjectScreens {
   std::future<std::vector<app::SectionChange>> compare_job_;
   std::optional<std::vector<app::SectionChange>> changes_;
   char revision_reason_[200] = {};
+  StructureForm structure_form_;
+  std::string saved_note_;
+  std::string highlight_ref_;        // the structure just added or edited, marked in the list
+  bool scroll_to_highlight_ = false;  // bring it into view once
+  std::string visit_views_date_;     // the visit the defects and rings views show
+  std::string sections_visit_id_;    // the visit (inspection id) whose sections the section view shows
+  std::string sections_structure_id_;  // and its structure
 };
 
 }  // namespace soffit::gui

@@ -9,6 +9,7 @@
 #include <filesystem>
 
 #include "app/gui/profile_plot.hpp"
+#include "app/gui/touch_scroll.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 #include "exports/fit_report_json.hpp"
@@ -34,6 +35,7 @@ void SectionWorkspace::load_folder(const std::string& folder) {
     } catch (const InputError& e) {
       entry.error = e.what();
     }
+    check_typed(entry);
     entries_.push_back(std::move(entry));
   }
   if (!entries_.empty()) select(0);
@@ -43,6 +45,7 @@ void SectionWorkspace::load_sheets(std::vector<std::pair<std::string, SurveyShee
   if (pending_.valid()) pending_.wait();  // a fit of the old sections may still be running
   pending_ = {};
   refit_wanted_ = false;
+  locked_.clear();
   entries_.clear();
   analysis_.reset();
   for (auto& [label, sheet] : sheets) {
@@ -50,15 +53,30 @@ void SectionWorkspace::load_sheets(std::vector<std::pair<std::string, SurveyShee
     entry.label = label;
     entry.path = sheet.source;
     entry.sheet = std::move(sheet);
+    check_typed(entry);
     entries_.push_back(std::move(entry));
   }
   selected_ = 0;
   if (!entries_.empty()) select(0);
 }
 
+void SectionWorkspace::check_typed(Entry& entry) {
+  if (!entry.sheet) return;
+  // A very long scan is not re-read at opening (a frame must not wait); a typed
+  // cell is still checked by the reader when it is made.
+  if (entry.sheet->raw_rows.size() > 20000) {
+    entry.typed = entry.sheet->raw_rows.size() == entry.sheet->readings.size() && !entry.sheet->columns.empty();
+    if (!entry.typed) entry.typed_note = "this section's rows were not kept as typed, so they are shown only";
+    return;
+  }
+  entry.typed = app::rows_reduce_again(*entry.sheet, entry.typed_note);
+}
+
 void SectionWorkspace::select(size_t index) {
   if (index >= entries_.size()) return;
   selected_ = index;
+  grid_.reset();
+  message_.clear();
   save_state_.clear();
   analysis_.reset();
   start_fit();
@@ -92,20 +110,19 @@ void SectionWorkspace::poll() {
   }
 }
 
-bool SectionWorkspace::store_exclusion(const Reading& before, const Reading& after, size_t reading) {
-  const bool exclusion_changed =
-      before.excluded != after.excluded || before.exclusion_reason != after.exclusion_reason;
-  if (!exclusion_changed) {
-    save_state_ = store_ ? "kept for this session only: corrections are not written to the project yet"
-                         : "kept for this session only";
-    return true;
-  }
-  if (!store_) {
-    save_state_ = "kept for this session only";
-    return true;
-  }
+bool SectionWorkspace::store_edit(const app::RowEdit& edit, bool forward) {
+  const std::optional<app::RowState>& to = forward ? edit.after : edit.before;
+  const std::optional<app::RowState>& from = forward ? edit.before : edit.after;
+  const bool exclusion_only = to && from && to->cells == from->cells && to->line == from->line;
   try {
-    store_(selected_, reading, after.excluded ? after.exclusion_reason : std::string());
+    if (exclusion_only && store_) {
+      store_(selected_, edit.index, to->excluded ? to->reason : std::string());
+    } else if (rows_store_) {
+      rows_store_(selected_, *entries_[selected_].sheet, forward ? edit.label : "undo " + edit.label);
+    } else {
+      save_state_ = "kept for this session only";
+      return true;
+    }
     save_state_ = "saved to the project";
     return true;
   } catch (const std::exception& ex) {
@@ -114,31 +131,46 @@ bool SectionWorkspace::store_exclusion(const Reading& before, const Reading& aft
   }
 }
 
-void SectionWorkspace::apply_edit(app::ReadingEdit edit) {
+void SectionWorkspace::apply_edit(app::RowEdit edit) {
   Entry& e = entries_[selected_];
-  const size_t index = edit.index;
-  const Reading before = edit.before, after = edit.after;
-  e.history.apply(e.sheet->readings, std::move(edit));
-  if (!store_exclusion(before, after, index)) e.history.undo(e.sheet->readings);  // keep view and file in step
+  const app::RowEdit made = edit;
+  try {
+    e.history.apply(*e.sheet, std::move(edit));
+  } catch (const std::exception& ex) {
+    // The reader refused the typed value: nothing changed; say where and why.
+    message_ = std::string("Not taken: ") + ex.what();
+    grid_.refused();
+    return;
+  }
+  message_.clear();
+  if (!made.before) e.draft.assign(e.sheet->columns.size(), std::string());  // the new reading is in
+  // Keep the view and the file in step: a refused store undoes the edit here too.
+  if (!store_edit(made, true)) e.history.undo(*e.sheet);
   start_fit();
 }
 
 void SectionWorkspace::undo() {
   Entry& e = entries_[selected_];
-  if (!e.sheet) return;
-  if (const app::ReadingEdit* edit = e.history.undo(e.sheet->readings)) {
-    if (!store_exclusion(edit->after, edit->before, edit->index)) e.history.redo(e.sheet->readings);
-    start_fit();
+  if (!e.sheet || !e.history.can_undo()) return;
+  try {
+    const app::RowEdit* edit = e.history.undo(*e.sheet);
+    if (!store_edit(*edit, false)) e.history.redo(*e.sheet);
+  } catch (const std::exception& ex) {
+    message_ = std::string("Cannot undo: ") + ex.what();
   }
+  start_fit();
 }
 
 void SectionWorkspace::redo() {
   Entry& e = entries_[selected_];
-  if (!e.sheet) return;
-  if (const app::ReadingEdit* edit = e.history.redo(e.sheet->readings)) {
-    if (!store_exclusion(edit->before, edit->after, edit->index)) e.history.undo(e.sheet->readings);
-    start_fit();
+  if (!e.sheet || !e.history.can_redo()) return;
+  try {
+    const app::RowEdit* edit = e.history.redo(*e.sheet);
+    if (!store_edit(*edit, true)) e.history.undo(*e.sheet);
+  } catch (const std::exception& ex) {
+    message_ = std::string("Cannot redo: ") + ex.what();
   }
+  start_fit();
 }
 
 void SectionWorkspace::draw_edit_bar() {
@@ -158,6 +190,10 @@ void SectionWorkspace::draw_edit_bar() {
                        ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Y))))
     redo();
   ImGui::EndDisabled();
+  if (locked_.empty()) {
+    ImGui::SameLine();
+    grid_.draw_entry_switch();
+  }
   if (!save_state_.empty()) {
     // The autosave indicator: where the last change went, said plainly.
     ImGui::SameLine();
@@ -167,157 +203,26 @@ void SectionWorkspace::draw_edit_bar() {
 }
 
 void SectionWorkspace::draw_readings_table() {
-  const Palette& c = palette();
   Entry& e = entries_[selected_];
-  const ShapeFit& fit = *analysis_->fit;
-  const Readings& readings = e.sheet->readings;
-  const size_t rows = std::min(readings.size(), fit.residuals.size());
   // A dialog asked for by a screenshot opens on the middle reading.
-  if (screenshot_dialog_ == "keypad" && rows > 0) request_keypad(rows / 2);
-  if (screenshot_dialog_ == "exclude" && rows > 0) request_exclude(rows / 2);
+  const size_t rows = e.sheet->readings.size();
+  if (screenshot_dialog_ == "keypad" && rows > 0) grid_.open_keypad_on(*e.sheet, rows / 2);
+  if (screenshot_dialog_ == "exclude" && rows > 0) grid_.open_exclude_on(rows / 2);
+  if (screenshot_dialog_ == "keyboard") grid_.set_keypad_entry(false);
   screenshot_dialog_.clear();
 
-  if (ImGui::BeginTable("readings", 6, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) {
-    ImGui::TableSetupColumn("#");
-    ImGui::TableSetupColumn("x m");
-    ImGui::TableSetupColumn("z m");
-    ImGui::TableSetupColumn("off curve mm");
-    ImGui::TableSetupColumn("state");
-    ImGui::TableSetupColumn("action");
-    ImGui::TableHeadersRow();
-    // Only the rows on screen are built: a scan slice has 10⁵ readings.
-    ImGuiListClipper clipper;
-    clipper.Begin(static_cast<int>(rows));
-    while (clipper.Step()) {
-      for (int row = clipper.DisplayStart; row < clipper.DisplayEnd; ++row) {
-        const size_t i = static_cast<size_t>(row);
-        const Reading& r = readings[i];
-        ImGui::PushID(row);
-        ImGui::TableNextRow();
-        ImGui::TableNextColumn();
-        ImGui::Text("%zu", i + 1);
-        ImGui::TableNextColumn();
-        ImGui::Text("%.3f", r.x);
-        ImGui::TableNextColumn();
-        // Tap the height to correct a misread value on the keypad (recorded, undoable).
-        char z_label[32];
-        std::snprintf(z_label, sizeof z_label, "%.3f", r.z);
-        const bool correct = ImGui::Button(z_label);
-        probe("z:" + std::to_string(i + 1));
-        if (correct) request_keypad(i);
-        ImGui::TableNextColumn();
-        // Beyond 2σ is shown in the departure colours: out of tolerance, look again.
-        const double res = fit.residuals[i];
-        const bool beyond = std::abs(res) > 2.0 * fit.sigmas[i];
-        if (beyond)
-          ImGui::PushStyleColor(ImGuiCol_Text,
-                                ImGui::ColorConvertU32ToFloat4(res < 0 ? c.residual_below : c.residual_above));
-        ImGui::Text("%+.1f%s", res * 1000, beyond ? "  (> 2 sigma)" : "");
-        if (beyond) ImGui::PopStyleColor();
-        ImGui::TableNextColumn();
-        if (r.excluded)
-          ImGui::TextWrapped("excluded: %s", r.exclusion_reason.c_str());
-        else if (r.check)
-          ImGui::TextUnformatted("closing check");
-        else
-          ImGui::TextUnformatted("used");
-        ImGui::TableNextColumn();
-        if (!r.check) {
-          if (r.excluded) {
-            const bool pressed = ImGui::Button("Use again");
-            probe("use again:" + std::to_string(i + 1));
-            if (pressed) {
-              app::ReadingEdit edit{i, r, r, "use reading " + std::to_string(i + 1) + " again"};
-              edit.after.excluded = false;
-              edit.after.exclusion_reason.clear();
-              apply_edit(std::move(edit));
-            }
-          } else {
-            const bool pressed = ImGui::Button("Exclude...");
-            probe("exclude:" + std::to_string(i + 1));
-            if (pressed) request_exclude(i);
-          }
-        }
-        ImGui::PopID();
-      }
-    }
-    ImGui::EndTable();
+  if (!message_.empty()) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().residual_below));
+    ImGui::TextWrapped("%s", message_.c_str());
+    ImGui::PopStyleColor();
   }
-
-  // Dialogs live outside the table so a row scrolled out of view cannot close them.
-  if (open_exclude_) {
-    ImGui::OpenPopup("Exclude reading");
-    open_exclude_ = false;
-  }
-  draw_exclude_dialog();
-  if (open_keypad_) {
-    ImGui::OpenPopup(keypad_.popup_id().c_str());
-    open_keypad_ = false;
-  }
-  if (correcting_) {
-    if (const auto value = keypad_.draw()) {
-      const size_t i = *correcting_;
-      correcting_.reset();
-      if (i < readings.size()) {
-        const Reading& r = readings[i];
-        app::ReadingEdit edit{i, r, r, "correct reading " + std::to_string(i + 1)};
-        edit.after.z = *value;
-        apply_edit(std::move(edit));
-      }
-    } else if (!ImGui::IsPopupOpen(keypad_.popup_id().c_str())) {
-      correcting_.reset();
-    }
-  }
-}
-
-void SectionWorkspace::request_keypad(size_t i) {
-  const Reading& r = entries_[selected_].sheet->readings[i];
-  correcting_ = i;
-  keypad_.begin("Height z (m) of reading " + std::to_string(i + 1), r.z, 3);
-  open_keypad_ = true;
-}
-
-void SectionWorkspace::request_exclude(size_t i) {
-  excluding_ = i;
-  reason_[0] = '\0';
-  open_exclude_ = true;
-}
-
-void SectionWorkspace::draw_exclude_dialog() {
-  if (!ImGui::BeginPopupModal("Exclude reading", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
-  Entry& e = entries_[selected_];
-  const size_t i = excluding_.value_or(0);
-  ImGui::Text("Exclude reading %zu from the fit? It stays in the data with its reason.", i + 1);
-  // Reasons from the trade's common errors (FIELD.md §3.3), one tap each.
-  for (const char* quick : {"protruding unit", "recessed joint", "deposit or vegetation", "blunder"}) {
-    const bool pressed = ImGui::Button(quick);
-    probe(std::string("reason:") + quick);
-    if (pressed) std::snprintf(reason_, sizeof reason_, "%s", quick);
-    ImGui::SameLine();
-  }
-  ImGui::NewLine();
-  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 24);
-  ImGui::InputText("reason", reason_, sizeof reason_);
-  const bool has_reason = reason_[0] != '\0';
-  ImGui::BeginDisabled(!has_reason);
-  const bool confirm = ImGui::Button("Exclude");
-  probe("confirm exclude");
-  if (confirm && has_reason && i < e.sheet->readings.size()) {
-    const Reading& r = e.sheet->readings[i];
-    app::ReadingEdit edit{i, r, r, "exclude reading " + std::to_string(i + 1)};
-    edit.after.excluded = true;
-    edit.after.exclusion_reason = reason_;
-    apply_edit(std::move(edit));
-    excluding_.reset();
-    ImGui::CloseCurrentPopup();
-  }
-  ImGui::EndDisabled();
-  ImGui::SameLine();
-  if (ImGui::Button("Cancel")) {
-    excluding_.reset();
-    ImGui::CloseCurrentPopup();
-  }
-  ImGui::EndPopup();
+  if (!locked_.empty())
+    ImGui::TextDisabled("%s", locked_.c_str());
+  else if (!e.typed && !e.typed_note.empty())
+    ImGui::TextDisabled("%s", e.typed_note.c_str());
+  const ShapeFit* fit = analysis_ && analysis_->ok() && !busy() ? &*analysis_->fit : nullptr;
+  if (std::optional<app::RowEdit> edit = grid_.draw(*e.sheet, e.typed, !locked_.empty(), fit, e.draft))
+    apply_edit(std::move(*edit));
 }
 
 void SectionWorkspace::draw_sheet_list() {
@@ -344,12 +249,15 @@ void SectionWorkspace::draw_results() {
     return;
   }
   draw_edit_bar();
+  // Without a fit the readings are still shown, so a bad value can be put right.
   if (!analysis_) {
     ImGui::TextUnformatted("Fitting...");
+    draw_readings_table();
     return;
   }
   if (!analysis_->ok()) {
     ImGui::TextWrapped("No fit: %s", analysis_->error.c_str());
+    draw_readings_table();
     return;
   }
   const ShapeFit& fit = *analysis_->fit;
@@ -392,14 +300,21 @@ void SectionWorkspace::draw_results() {
 }
 
 void SectionWorkspace::draw() {
-  const float list_width = ImGui::GetFontSize() * 16;
+  const float list_width = ImGui::GetFontSize() * 11;  // the grid needs the width more
+  const float paging_row = ImGui::GetFrameHeightWithSpacing();
   ImGui::BeginChild("sheets", ImVec2(list_width, 0), true);
   draw_sheet_list();
+  drag_to_scroll();
   ImGui::EndChild();
   ImGui::SameLine();
-  ImGui::BeginChild("results", ImVec2(0, 0), true);
+  ImGui::BeginGroup();
+  // The results scroll by finger and by page: the grid of a long section is below the plot.
+  ImGui::BeginChild("results", ImVec2(0, -paging_row), true);
   draw_results();
+  drag_to_scroll();
   ImGui::EndChild();
+  paging_buttons("results");
+  ImGui::EndGroup();
 }
 
 }  // namespace soffit::gui

@@ -1,35 +1,40 @@
 #pragma once
-// Undo and redo for edits to a section's readings. Each entry keeps the whole
-// reading before and after: readings are small, and a snapshot cannot drift
-// out of step with the data the way an inverse operation can.
+// Undo and redo for edits to a section's rows: a cell typed, a row added, an
+// exclusion made. Each entry keeps the whole row before and after: rows are
+// small, and a snapshot cannot drift out of step with the data the way an
+// inverse operation can. Every step reduces the sheet again (sheet_rows.hpp).
+#include <optional>
 #include <string>
 #include <vector>
 
-#include "geometry/core/reading.hpp"
+#include "app/model/sheet_rows.hpp"
 
 namespace soffit::app {
 
-struct ReadingEdit {
+struct RowEdit {
   size_t index = 0;
-  Reading before, after;
-  std::string label;  // "exclude reading 4", for the undo button
+  std::optional<RowState> before;  // none: the edit added this row
+  std::optional<RowState> after;   // none: the edit removed it
+  std::string label;               // "exclude reading 4", for the undo button
 };
 
 class EditHistory {
  public:
-  // Applies `edit` to `readings` and records it; clears what could be redone.
-  void apply(Readings& readings, ReadingEdit edit);
+  // Applies `edit` to `sheet` and records it; clears what could be redone.
+  // Throws InputError (naming file, line and field) when the edited sheet
+  // cannot be reduced; then neither the sheet nor the history changes.
+  void apply(SurveySheet& sheet, RowEdit edit);
   // Each returns the edit it moved over (null when there was none), so the
-  // caller can carry the same change to wherever the readings are kept.
-  const ReadingEdit* undo(Readings& readings);
-  const ReadingEdit* redo(Readings& readings);
+  // caller can carry the same change to wherever the sheet is kept.
+  const RowEdit* undo(SurveySheet& sheet);
+  const RowEdit* redo(SurveySheet& sheet);
   bool can_undo() const { return !done_.empty(); }
   bool can_redo() const { return !undone_.empty(); }
   const std::string& next_undo_label() const { return done_.back().label; }
   const std::string& next_redo_label() const { return undone_.back().label; }
 
  private:
-  std::vector<ReadingEdit> done_, undone_;
+  std::vector<RowEdit> done_, undone_;
 };
 
 }  // namespace soffit::app

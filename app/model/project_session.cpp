@@ -63,6 +63,27 @@ void ProjectSession::revise_visit(const std::string& inspection_id, const std::s
   });
 }
 
+std::string ProjectSession::add_structure(const storage::StructureFields& fields) {
+  if (!project_) throw storage::StorageError(storage::ErrorKind::not_found, "", "no project is open");
+  std::string id;
+  project_->edit("add structure " + fields.ref, [&](storage::Connection& db) {
+    id = storage::insert_structure(db, project_->author(), fields);
+  });
+  return id;
+}
+
+void ProjectSession::update_structure(const std::string& structure_id, const storage::StructureFields& fields) {
+  if (!project_) throw storage::StorageError(storage::ErrorKind::not_found, "", "no project is open");
+  project_->edit("edit details of " + fields.ref, [&](storage::Connection& db) {
+    storage::update_structure(db, project_->author(), structure_id, fields);
+  });
+}
+
+bool ProjectSession::undo() { return project_ && project_->undo(); }
+bool ProjectSession::redo() { return project_ && project_->redo(); }
+std::string ProjectSession::undo_label() { return project_ ? project_->undo_label() : std::string(); }
+std::string ProjectSession::redo_label() { return project_ ? project_->redo_label() : std::string(); }
+
 void ProjectSession::set_reading_exclusion(const std::string& section_id, size_t reading, const std::string& reason) {
   if (!project_) return;
   const std::vector<std::string> ids = storage::section_reading_ids(project_->db(), section_id);

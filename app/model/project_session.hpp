@@ -37,6 +37,19 @@ class ProjectSession {
   // is read-only and a correction is a new revision, with its reason.
   void set_visit_status(const std::string& inspection_id, const std::string& status);
   void revise_visit(const std::string& inspection_id, const std::string& reason);
+
+  // The register's own details, each one undoable edit. Bad fields are refused
+  // (storage::StorageError, kind invalid) with a message that starts with the
+  // field's name, and the project is left as it was. add_structure returns the new id.
+  std::string add_structure(const storage::StructureFields& fields);
+  void update_structure(const std::string& structure_id, const storage::StructureFields& fields);
+
+  // The project's journal: undo the latest edit made anywhere in the app (it
+  // survives reopening), redo the latest undone one; false when there is none.
+  bool undo();
+  bool redo();
+  std::string undo_label();  // "" when nothing to undo
+  std::string redo_label();
   // The open project for views that edit observations (nullptr when none is open).
   storage::Project* project() { return project_ ? &*project_ : nullptr; }
 

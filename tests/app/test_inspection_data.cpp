@@ -1,6 +1,8 @@
 // The data behind the defects and rings views: one visit read through
-// storage, defects added and deleted as undoable edits of the project file.
-// Values checked against the invented demo of FIELD.md §10.
+// storage, defects added, edited and deleted as undoable edits of the project
+// file, the elevations defects are drawn on, and the plane geometry of drawn
+// defects (hand-computed values). Values checked against the invented demo of
+// FIELD.md §10.
 #include <doctest/doctest.h>
 
 #include <chrono>
@@ -8,6 +10,7 @@
 #include <filesystem>
 #include <optional>
 
+#include "app/model/defect_shapes.hpp"
 #include "app/model/inspection_data.hpp"
 #include "tests/app/demo_project_fixture.hpp"
 #include "storage/inspection_observations.hpp"
@@ -73,7 +76,7 @@ TEST_CASE("the 2019 visit of the demo: its defects and the S1 barrel frame") {
   CHECK(s1.arc_length_m > 7.418 * 0.99);
 }
 
-TEST_CASE("adding a point defect is one undoable edit; a bad severity or type is refused and changes nothing") {
+TEST_CASE("adding a point defect is one undoable edit - a bad severity or type is refused and changes nothing") {
   DemoProject demo;
   app::InspectionData data;
   data.load(*demo.project, kDemoRef);
@@ -104,4 +107,173 @@ TEST_CASE("adding a point defect is one undoable edit; a bad severity or type is
   CHECK(in_db() == 10);
   CHECK(data.undo());
   CHECK(in_db() == 11);
+}
+
+TEST_CASE("path_length and shoelace_area against hand-worked figures") {
+  // A 3-4-5 path: 3 + 4 = 7 (plane geometry); a single point or nothing has no length.
+  CHECK(std::abs(app::path_length({{0, 0}, {3, 0}, {3, 4}}) - 7.0) < 1e-12);
+  CHECK(std::abs(app::path_length({{1, 1}, {4, 5}}) - 5.0) < 1e-12);
+  CHECK(app::path_length({{2, 2}}) == 0.0);
+  // Rectangle 4 x 3 = 12 either way round; right triangle with legs 4 and 3: 4 x 3 / 2 = 6.
+  CHECK(std::abs(app::shoelace_area({{0, 0}, {4, 0}, {4, 3}, {0, 3}}) - 12.0) < 1e-12);
+  CHECK(std::abs(app::shoelace_area({{0, 3}, {4, 3}, {4, 0}, {0, 0}}) - 12.0) < 1e-12);
+  CHECK(std::abs(app::shoelace_area({{0, 0}, {4, 0}, {0, 3}}) - 6.0) < 1e-12);
+  // An L: the 2 x 2 square less its 1 x 1 corner = 3, away from the origin too.
+  const app::PlanePath l = {{10, 5}, {12, 5}, {12, 6}, {11, 6}, {11, 7}, {10, 7}};
+  CHECK(std::abs(app::shoelace_area(l) - 3.0) < 1e-12);
+  CHECK(app::shoelace_area({{0, 0}, {1, 1}}) == 0.0);
+  // The demo's D06 ring (FIELD.md §10.4: s 1.30–4.70, band 0.8 m wide): 3.40 x 0.80 = 2.72 m2.
+  CHECK(std::abs(app::shoelace_area({{1.30, 4.15}, {4.70, 4.15}, {4.70, 4.95}, {1.30, 4.95}}) - 2.72) < 1e-12);
+}
+
+TEST_CASE("inside_ring and distance_to_path pick what a finger touches") {
+  const app::PlanePath l = {{0, 0}, {2, 0}, {2, 1}, {1, 1}, {1, 2}, {0, 2}};
+  CHECK(app::inside_ring({0.5, 1.5}, l));
+  CHECK_FALSE(app::inside_ring({1.5, 1.5}, l));  // the missing corner of the L
+  CHECK_FALSE(app::inside_ring({3, 0.5}, l));
+  // Distance from (1, 1) to the segment (0,0)–(2,0) is 1; to its far end beyond it, a straight hypotenuse.
+  CHECK(std::abs(app::distance_to_path({1, 1}, {{0, 0}, {2, 0}}, false) - 1.0) < 1e-12);
+  CHECK(std::abs(app::distance_to_path({5, 4}, {{0, 0}, {2, 0}}, false) - 5.0) < 1e-12);
+  // Closed: the edge back from (0,2) to (0,0) counts; open, it does not.
+  CHECK(std::abs(app::distance_to_path({-0.5, 1}, {{0, 0}, {2, 0}, {0, 2}}, true) - 0.5) < 1e-12);
+  CHECK(app::distance_to_path({-0.5, 1}, {{0, 0}, {2, 0}, {0, 2}}, false) > 0.5);
+}
+
+TEST_CASE("simplify_path keeps corners and drops samples along straight runs") {
+  const app::PlanePath straight = {{0, 0}, {1, 0.001}, {2, -0.001}, {3, 0}};
+  CHECK(app::simplify_path(straight, 0.01) == app::PlanePath{{0, 0}, {3, 0}});
+  const app::PlanePath corner = {{0, 0}, {1, 0}, {2, 0}, {2, 1}, {2, 2}};
+  CHECK(app::simplify_path(corner, 0.01) == app::PlanePath{{0, 0}, {2, 0}, {2, 2}});
+  // A closed drag round a square, back to its start: the four corners and the return survive.
+  const app::PlanePath square = {{0, 0}, {1, 0}, {2, 0}, {2, 1}, {2, 2}, {1, 2}, {0, 2}, {0, 1}, {0, 0}};
+  CHECK(app::simplify_path(square, 0.01) == app::PlanePath{{0, 0}, {2, 0}, {2, 2}, {0, 2}, {0, 0}});
+}
+
+TEST_CASE("StrokeSampler keeps a sample every step and knows how far the drag reached") {
+  app::StrokeSampler s(6.0);
+  s.start({0, 0});
+  CHECK_FALSE(s.move({3, 0}));  // 3 < 6 from the last sample
+  CHECK(s.move({6, 0}));
+  CHECK_FALSE(s.move({6, 4}));  // 4 from (6, 0)
+  CHECK(std::abs(s.reach() - std::hypot(6.0, 4.0)) < 1e-12);
+  s.finish({6, 4});  // the lift is kept: 4 is more than a tenth of a step
+  CHECK(s.points() == app::PlanePath{{0, 0}, {6, 0}, {6, 4}});
+  s.start({0, 0});
+  s.move({1, 1});
+  s.finish({1, 1});
+  CHECK(s.reach() < 2.0);  // a wobble, for the view to treat as a tap
+}
+
+TEST_CASE("add_defect stores a line's length and an area's shoelace - bad geometry or width changes nothing") {
+  DemoProject demo;
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  const std::string visit = data.data().inspection.id;
+  auto in_db = [&] { return storage::inspection_observations(demo.project->db(), visit).defects.size(); };
+  const app::BarrelFrame s1 = data.barrels()[0];
+  const std::string line = data.add_defect(s1.place(), storage::DefectGeometry::line, {{1.0, 1.0}, {4.0, 5.0}},
+                                           {"diagonal_crack", 2, 0.3, "fresh edges"});
+  const std::string area = data.add_defect(s1.place(), storage::DefectGeometry::area,
+                                           {{0.5, 0.5}, {2.5, 0.5}, {2.5, 2.0}}, {"spalling", 3, {}, ""});
+  CHECK(line == "D11");
+  CHECK(area == "D12");
+  CHECK(data.undo_label() == "add defect D12");
+  app::InspectionData again;  // read back from the file, not from `data`
+  again.load(*demo.project, kDemoRef);
+  for (const auto& d : again.defects()) {
+    const auto& f = d.defect.fields;
+    if (f.ref == "D11") {
+      CHECK(f.geometry == storage::DefectGeometry::line);
+      REQUIRE(f.length_m);
+      CHECK(std::abs(*f.length_m - 5.0) < 1e-12);  // 3-4-5
+      CHECK(std::abs(*f.width_mm - 0.3) < 1e-12);
+      CHECK_FALSE(f.area_m2);
+      CHECK(f.notes == "fresh edges");
+    }
+    if (f.ref == "D12") {
+      REQUIRE(f.area_m2);
+      CHECK(std::abs(*f.area_m2 - 1.5) < 1e-12);  // legs 2.0 and 1.5: 1.5 m2
+      CHECK_FALSE(f.length_m);
+    }
+  }
+  CHECK(in_db() == 12);
+  CHECK_THROWS_WITH_AS(data.add_defect(s1.place(), storage::DefectGeometry::line, {{1.0, 1.0}}, {"other", 2, {}, ""}),
+                       doctest::Contains("'points'"), storage::StorageError);
+  CHECK_THROWS_WITH_AS(data.add_defect(s1.place(), storage::DefectGeometry::line, {{1, 1}, {2, 2}},
+                                       {"transverse_crack", 2, -1.0, ""}),
+                       doctest::Contains("width_mm"), storage::StorageError);
+  CHECK(in_db() == 12);
+  CHECK(data.undo_label() == "add defect D12");
+}
+
+TEST_CASE("update_defect changes type, severity, width and notes as one undoable edit") {
+  DemoProject demo;
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  std::string d04;
+  for (const auto& d : data.defects())
+    if (d.defect.fields.ref == "D04") d04 = d.id;
+  REQUIRE_FALSE(d04.empty());
+  data.update_defect(d04, {"transverse_crack", 3, 0.5, "re-read with the microscope"});
+  CHECK(data.undo_label() == "edit defect D04");
+  auto d04_now = [&] {
+    app::InspectionData fresh;
+    fresh.load(*demo.project, kDemoRef);
+    for (const auto& d : fresh.defects())
+      if (d.id == d04) return d.defect.fields;
+    return storage::DefectFields{};
+  };
+  CHECK(d04_now().severity == 3);
+  CHECK(std::abs(*d04_now().width_mm - 0.5) < 1e-12);
+  CHECK(d04_now().points.size() == 2);  // the position is not touched
+  CHECK(data.undo());
+  // FIELD.md §10.4: D04 read 0.4 mm in 2025.
+  CHECK(std::abs(*d04_now().width_mm - 0.4) < 1e-12);
+  CHECK_THROWS_AS(data.update_defect(d04, {"transverse_crack", 0, 0.5, ""}), storage::StorageError);
+}
+
+TEST_CASE("the demo's elevations: spandrels, supports and the defects already on them") {
+  DemoProject demo;
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  const auto barrels = data.barrels();
+  REQUIRE(barrels.size() == 2);
+  const auto s1 = data.elevations(barrels[0].span_id);
+  std::vector<std::string> names;
+  for (const auto& e : s1) names.push_back(e.name);
+  // The demo's S1 details list the W abutment and the pier (demo_project.cpp, after FIELD.md §10).
+  CHECK(names == std::vector<std::string>{"US spandrel", "DS spandrel", "W abutment", "pier"});
+  auto refs_on = [&](const app::ElevationFrame& e) {
+    std::vector<std::string> refs;
+    for (const auto* d : data.elevation_defects(e)) refs.push_back(d->defect.fields.ref);
+    return refs;
+  };
+  const app::ElevationFrame& ds = s1[1];
+  CHECK(refs_on(ds) == std::vector<std::string>{"D03"});  // FIELD.md §10.4: bulge on the S1 DS spandrel
+  CHECK(ds.seen_from_downstream);
+  CHECK(ds.place().frame == storage::DefectFrame::elevation);
+  CHECK(ds.origin.find("DS spandrel") != std::string::npos);
+  // Width: the S1 DS section's end stations at x 0 and 6.4 (FIELD.md §10.2).
+  CHECK(std::abs(ds.x_max - ds.x_min - 6.4) < 1e-9);
+  // No wall height in the details: the stand-in is the rise + 1 m; the S1 DS 2025 crown offset is
+  // 1286 mm over springing stations at -300 (FIELD.md §10.2): rise 1.586 m.
+  CHECK(ds.height_assumed);
+  CHECK(std::abs(ds.z_max - (1.586 + 1.0)) < 1e-9);
+  CHECK(refs_on(s1[0]).empty());
+  // D08 (pier, upstream nose) is on no span: it goes with the pier. FIELD.md §10: pier 1.20 m thick;
+  // its scour hole reaches 0.25 m below the footing top.
+  const app::ElevationFrame& pier = s1[3];
+  CHECK(refs_on(pier) == std::vector<std::string>{"D08"});
+  CHECK(std::abs(pier.x_max - pier.x_min - 1.20) < 1e-9);
+  CHECK(std::abs(pier.z_min + 0.25) < 1e-9);
+  const auto s2 = data.elevations(barrels[1].span_id);
+  std::vector<std::string> s2_names;
+  for (const auto& e : s2) s2_names.push_back(e.name);
+  // D07 on the S2 US spandrel; D09 on the S2 US parapet, an elevation of its own (FIELD.md §10.4).
+  CHECK(s2_names == std::vector<std::string>{"US spandrel", "DS spandrel", "E abutment", "US parapet"});
+  CHECK(refs_on(s2[0]) == std::vector<std::string>{"D07"});
+  CHECK(refs_on(s2[3]) == std::vector<std::string>{"D09"});
+  // S2's DS spandrel has no defects yet: a new one gets a frame named for it.
+  CHECK(s2[1].origin == "S2 DS spandrel elevation: x from the S2 W springing, z above the springing");
+  CHECK(s2[1].element == "S2 DS spandrel wall");
 }

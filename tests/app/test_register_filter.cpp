@@ -26,7 +26,7 @@ TEST_CASE("a structure is due once the interval since its latest visit has passe
   CHECK_FALSE(app::due_for_inspection("2025-05-21", "2026-12-01", 2));
 }
 
-TEST_CASE("filters keep due structures and those with severe defects at the latest visit; order as asked") {
+TEST_CASE("filters keep due structures and those with severe defects at the latest visit - order as asked") {
   const std::vector<storage::StructureSummary> rows = {
       row("B-2", "Alder Bridge", "2019-03-01", 2),
       row("A-1", "Sallow Ford Bridge", "2025-05-21", 4),

@@ -34,7 +34,7 @@ std::string demo_args() {
 
 }  // namespace
 
-TEST_CASE("soffit export writes the geometry file and each section's csv, svg and geo; the JSON validates") {
+TEST_CASE("soffit export writes the geometry file and each section's csv, svg and geo - the JSON validates") {
   ExportDir dir;
   const fs::path out = dir.path() / "new";
   const auto r = run_soffit(demo_args() + " --inspection 2019-05-14 --out " + out.string());

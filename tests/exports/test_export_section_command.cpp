@@ -61,7 +61,7 @@ TEST_CASE("soffit export-section: two runs give byte-identical files") {
   CHECK(compared == 3);
 }
 
-TEST_CASE("soffit export-section: --format chooses the files; geo is added only with a ring thickness") {
+TEST_CASE("soffit export-section: --format chooses the files - geo is added only with a ring thickness") {
   ExportDir dir;
   auto r = run_soffit("export-section " + kSheet + " --mc 0 --format svg --out " + dir.path().string());
   REQUIRE_MESSAGE(r.exit_code == 0, r.err);

@@ -58,7 +58,7 @@ TEST_CASE("ring thickness from a verified count keeps only the +-10 mm of taping
   CHECK(e.warnings.empty());
 }
 
-TEST_CASE("ring thickness: one ring is never fewer; a recorded range is kept; a missing joint gives null") {
+TEST_CASE("ring thickness: one ring is never fewer - a recorded range is kept - a missing joint gives null") {
   auto c = count(1);
   c.thickness_mm = 115;
   c.thickness_lower_mm = 100;

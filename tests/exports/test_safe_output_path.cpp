@@ -59,7 +59,7 @@ TEST_CASE("export paths: a symbolic link escaping the folder is refused and the 
   CHECK_THROWS_AS(safe_output_path(dir.path(), "out"), ExportPathError);
 }
 
-TEST_CASE("export paths: a folder reached through a link is fine; writes replace whole files") {
+TEST_CASE("export paths: a folder reached through a link is fine - writes replace whole files") {
   ExportDir real, links;
   const fs::path via = links.path() / "to-real";
   fs::create_directory_symlink(real.path(), via);

@@ -151,7 +151,7 @@ TEST_CASE("NIST StRD Thurber (higher difficulty): certified values to LRE >= 6")
   });
 }
 
-TEST_CASE("NIST StRD BoxBOD: start 2 converges; start 1 is reported, never a wrong answer") {
+TEST_CASE("NIST StRD BoxBOD: start 2 converges - start 1 is reported, never a wrong answer") {
   // y = b1 (1 − exp(−b2 x)). REFERENCES.md §3: from start 1 plain LM diverges.
   const Model model = [](const Eigen::VectorXd& b, double x, double* g) {
     const double e = std::exp(-b[1] * x);

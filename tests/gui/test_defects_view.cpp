@@ -1,18 +1,25 @@
 // Drives the defects and rings views through ImGui's input on the demo
 // project (FIELD.md §10, invented): place a defect by tapping the barrel,
 // choosing its type and severity and confirming; undo it; delete one after
-// confirming. Counts are read back by a separate storage query
-// (inspection_observations), not from the view.
+// confirming; draw a crack line and an area outline by dragging; edit a
+// defect; place one on a spandrel elevation. Counts and stored fields are read
+// back by separate storage queries, or from the reopened project file, not
+// from the view.
 #include <doctest/doctest.h>
 
 #include <chrono>
 #include <cmath>
 #include <filesystem>
+#include <memory>
+#include <optional>
 #include <string>
+#include <vector>
 
 #include "app/gui/defects_view.hpp"
 #include "app/gui/rings_fill_view.hpp"
+#include "app/model/defect_shapes.hpp"
 #include "headless_ui.hpp"
+#include "pointer_drag.hpp"
 #include "tests/app/demo_project_fixture.hpp"
 #include "storage/inspection_observations.hpp"
 
@@ -23,6 +30,35 @@ namespace {
 
 using test::DemoProject;
 using test::kDemoRef;
+
+float distance(ImVec2 a, ImVec2 b) { return std::hypot(a.x - b.x, a.y - b.y); }
+
+// Pixels per metre of the surface on show, measured through the view's own mapping.
+float pixels_per_metre(const gui::DefectsView& view) {
+  const auto a = view.screen_point(0.0, 0.0), b = view.screen_point(1.0, 0.0);
+  REQUIRE(a);
+  return distance(*a, *b);
+}
+
+// The stored defect `ref` of the latest visit, read from the project file reopened from disk.
+std::optional<storage::DefectFields> reopened_defect(DemoProject& demo, const std::string& ref) {
+  const std::string path = demo.project->path();
+  demo.project.reset();
+  demo.project.emplace(storage::Project::open(path, "test"));
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  for (const auto& d : data.defects())
+    if (d.defect.fields.ref == ref) return d.defect.fields;
+  return std::nullopt;
+}
+
+// Types a number on the width keypad (the field starts at "0": delete it first).
+void enter_width(test::HeadlessUi& ui, const std::string& digits) {
+  REQUIRE(ui.tap("width"));
+  REQUIRE(ui.tap("key:<"));
+  for (char k : digits) REQUIRE(ui.tap(std::string("key:") + k));
+  REQUIRE(ui.tap("key:ok"));
+}
 
 }  // namespace
 
@@ -55,7 +91,7 @@ TEST_CASE("the defects view shows the 2025 visit's defects on the unrolled barre
   CHECK(ui.drawn("undo"));
 }
 
-TEST_CASE("tap the barrel, choose type and severity, confirm: one more defect; Undo removes it; Redo restores it") {
+TEST_CASE("tap the barrel, choose type and severity, confirm: one more defect - Undo removes it - Redo restores it") {
   DemoProject demo;
   gui::DefectsView view;
   view.open(*demo.project, kDemoRef);
@@ -110,7 +146,7 @@ TEST_CASE("no defect is placed without a type and a severity, nor when cancelled
   CHECK(demo.defects_in_db(visit) == 10);
 }
 
-TEST_CASE("tapping a mark selects it; Delete asks first, then removes it; Undo brings it back") {
+TEST_CASE("tapping a mark selects it - Delete asks first, then removes it - Undo brings it back") {
   DemoProject demo;
   gui::DefectsView view;
   view.open(*demo.project, kDemoRef);
@@ -129,6 +165,202 @@ TEST_CASE("tapping a mark selects it; Delete asks first, then removes it; Undo b
   for (const auto& d : view.data().defects()) CHECK(d.defect.fields.ref != "D05");
   REQUIRE(ui.tap("undo"));
   CHECK(demo.defects_in_db(visit) == 10);
+}
+
+TEST_CASE("drag a crack line on the barrel: type, width and severity saved with its length - it survives reopening - "
+          "Undo removes it") {
+  DemoProject demo;
+  auto view = std::make_unique<gui::DefectsView>();
+  view->open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view->draw(); });
+  ui.frame();
+  const std::string visit = view->data().data().inspection.id;
+  REQUIRE(ui.tap("mode:line"));
+  // S1 barrel, s 1.0–3.0 and y 0.8–2.5: clear of every 2025 mark (FIELD.md §10.4: D01, D02, D06 at
+  // y 4.15 and beyond, D10 at s 5–6). A bend in the middle, so the line keeps three points.
+  const ImVec2 a = *view->screen_point(1.0, 0.8), bend = *view->screen_point(2.0, 1.2), b = *view->screen_point(3.0, 2.5);
+  const double drawn_m = (distance(a, bend) + distance(bend, b)) / pixels_per_metre(*view);
+  test::drag_through(ui, {a, bend, b});
+  REQUIRE(ui.tap("type:diagonal_crack"));
+  REQUIRE(ui.tap("severity:2"));
+  enter_width(ui, "0.8");
+  REQUIRE(ui.tap("confirm defect"));
+  CHECK(view->message().empty());
+  CHECK(demo.defects_in_db(visit) == 11);
+  view->close();
+
+  const auto saved = reopened_defect(demo, "D11");
+  REQUIRE(saved);
+  CHECK(saved->defect_type == "diagonal_crack");
+  CHECK(saved->geometry == storage::DefectGeometry::line);
+  CHECK(saved->frame == storage::DefectFrame::soffit);
+  CHECK(saved->frame_origin == "S1 W springing; US face");  // the frame D01 uses (FIELD.md §10.4)
+  REQUIRE(saved->points.size() >= 2);
+  CHECK(saved->severity == 2);
+  REQUIRE(saved->width_mm);
+  CHECK(std::abs(*saved->width_mm - 0.8) < 1e-9);
+  REQUIRE(saved->length_m);
+  // The stored length is the drawn distance converted through the view's own scale, within 1 cm.
+  CHECK(std::abs(*saved->length_m - drawn_m) < 0.01);
+  // And it is the length of the stored polyline (plane geometry).
+  CHECK(std::abs(*saved->length_m - app::path_length(saved->points)) < 1e-9);
+  // Ends where the finger went down and lifted: 1 px is under 1 cm at this scale.
+  CHECK(std::abs(saved->points.front().first - 1.0) < 0.01);
+  CHECK(std::abs(saved->points.front().second - 0.8) < 0.01);
+  CHECK(std::abs(saved->points.back().first - 3.0) < 0.01);
+  CHECK(std::abs(saved->points.back().second - 2.5) < 0.01);
+
+  // Undo is kept in the project file: after reopening, Undo in the view still removes the line.
+  view->open(*demo.project, kDemoRef);
+  ui.frame();
+  REQUIRE(ui.tap("undo"));
+  CHECK(demo.defects_in_db(visit) == 10);
+}
+
+TEST_CASE("a tiny drag in crack-line mode is a tap: it draws nothing and says how to draw") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.frame();
+  const std::string visit = view.data().data().inspection.id;
+  REQUIRE(ui.tap("mode:line"));
+  const ImVec2 a = *view.screen_point(2.0, 1.0);
+  test::drag_through(ui, {a, ImVec2(a.x + 3, a.y + 2)}, 1.0f);  // 3.6 px: a finger's wobble
+  CHECK_FALSE(ui.tap("confirm defect"));  // no dialog was ever drawn
+  CHECK(demo.defects_in_db(visit) == 10);
+}
+
+TEST_CASE("outline an area by dragging round it: area_m2 is the shoelace of the stored ring and the drawn "
+          "rectangle's area") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.frame();
+  const std::string visit = view.data().data().inspection.id;
+  REQUIRE(ui.tap("mode:area"));
+  // A 2.0 m x 1.2 m rectangle on the S1 barrel (s 1.0–3.0, y 0.8–2.0), clear of the 2025 marks.
+  const std::vector<ImVec2> corners = {*view.screen_point(1.0, 0.8), *view.screen_point(3.0, 0.8),
+                                       *view.screen_point(3.0, 2.0), *view.screen_point(1.0, 2.0),
+                                       *view.screen_point(1.0, 0.8)};
+  const float px = pixels_per_metre(view);
+  test::drag_through(ui, corners);
+  REQUIRE(ui.tap("type:spalling"));
+  REQUIRE(ui.tap("severity:3"));
+  REQUIRE(ui.tap("confirm defect"));
+  CHECK(demo.defects_in_db(visit) == 11);
+  view.close();
+  const auto saved = reopened_defect(demo, "D11");
+  REQUIRE(saved);
+  CHECK(saved->geometry == storage::DefectGeometry::area);
+  REQUIRE(saved->points.size() >= 3);
+  REQUIRE(saved->area_m2);
+  // Shoelace of the stored points, worked here independently of the model.
+  double twice = 0;
+  for (size_t i = 0; i < saved->points.size(); ++i) {
+    const auto& [x0, y0] = saved->points[i];
+    const auto& [x1, y1] = saved->points[(i + 1) % saved->points.size()];
+    twice += x0 * y1 - x1 * y0;
+  }
+  CHECK(std::abs(*saved->area_m2 - std::abs(twice) / 2) < 1e-9);
+  // The drawn rectangle: 2.0 x 1.2 = 2.40 m2, to within a pixel's width all round its 6.4 m perimeter.
+  CHECK(std::abs(*saved->area_m2 - 2.40) < 6.4 / px);
+  CHECK_FALSE(saved->width_mm);  // spalling has no width
+}
+
+TEST_CASE("an area by tapping its corners and Close area") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.frame();
+  const std::string visit = view.data().data().inspection.id;
+  REQUIRE(ui.tap("mode:area"));
+  // A right triangle with legs 2.0 m (along s) and 1.5 m (across): 1.5 m2 (plane geometry).
+  ui.tap_at(*view.screen_point(1.0, 0.5));
+  ui.tap_at(*view.screen_point(3.0, 0.5));
+  CHECK_FALSE(ui.tap("confirm defect"));
+  ui.tap_at(*view.screen_point(1.0, 2.0));
+  REQUIRE(ui.tap("close area"));
+  REQUIRE(ui.tap("type:efflorescence"));
+  REQUIRE(ui.tap("severity:1"));
+  REQUIRE(ui.tap("confirm defect"));
+  CHECK(demo.defects_in_db(visit) == 11);
+  const app::DefectOnRecord* added = nullptr;
+  for (const auto& d : view.data().defects())
+    if (d.defect.fields.ref == "D11") added = &d;
+  REQUIRE(added);
+  CHECK(added->defect.fields.points.size() == 3);
+  REQUIRE(added->defect.fields.area_m2);
+  CHECK(std::abs(*added->defect.fields.area_m2 - 1.5) < 0.02);  // a pixel is under 1 cm here
+}
+
+TEST_CASE("edit a selected defect's severity: one undoable edit") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.frame();
+  const std::string visit = view.data().data().inspection.id;
+  REQUIRE(ui.tap("span:S2"));
+  ui.tap_at(*view.screen_point(0.55, 3.40));  // D05, FIELD.md §10.4
+  REQUIRE_FALSE(view.selected_defect().empty());
+  REQUIRE(ui.tap("edit"));
+  REQUIRE(ui.tap("severity:5"));
+  REQUIRE(ui.tap("save edit"));
+  CHECK(view.message().empty());
+  auto severity_of_d05 = [&] {
+    for (const auto& row : storage::inspection_observations(demo.project->db(), visit).defects)
+      if (row.ref == "D05") return row.severity.value_or(0);
+    return 0LL;
+  };
+  CHECK(severity_of_d05() == 5);
+  CHECK(demo.defects_in_db(visit) == 10);
+  CHECK(view.data().data().defects.size() == 10);
+  REQUIRE(ui.tap("undo"));
+  CHECK(severity_of_d05() == 3);  // the demo's grade for D05 (demo_project.cpp, invented)
+}
+
+TEST_CASE("the DS spandrel elevation shows D03 and takes a new defect in its frame") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.frame();
+  const std::string visit = view.data().data().inspection.id;
+  REQUIRE(ui.tap("surface:DS spandrel"));
+  CHECK(view.surface() == "DS spandrel");
+  // D03 is on the S1 DS spandrel at x 3.2, z 1.0 (FIELD.md §10.4): tapping it selects it.
+  ui.tap_at(*view.screen_point(3.2, 1.0));
+  std::string d03_origin;
+  for (const auto& d : view.data().defects())
+    if (d.id == view.selected_defect()) {
+      CHECK(d.defect.fields.ref == "D03");
+      d03_origin = d.defect.fields.frame_origin;
+    }
+  REQUIRE_FALSE(d03_origin.empty());
+  // Seen from downstream, x = 0 (the W end) is on the right.
+  CHECK(view.screen_point(0.0, 1.0)->x > view.screen_point(6.0, 1.0)->x);
+  // z up: higher on the wall is higher on the screen.
+  CHECK(view.screen_point(1.0, 2.0)->y < view.screen_point(1.0, 0.5)->y);
+  REQUIRE(ui.tap("deselect"));
+  // x 1.0, z 2.2: on the wall above the haunch (S1 DS readings, FIELD.md §10.2: the intrados is 0.8 m
+  // above the springing at x 0.8, and 1.3 m at x 1.6).
+  ui.tap_at(*view.screen_point(1.0, 2.2));
+  REQUIRE(ui.tap("type:spandrel_lean"));
+  REQUIRE(ui.tap("severity:2"));
+  REQUIRE(ui.tap("confirm defect"));
+  CHECK(demo.defects_in_db(visit) == 11);
+  view.close();
+  const auto saved = reopened_defect(demo, "D11");
+  REQUIRE(saved);
+  CHECK(saved->frame == storage::DefectFrame::elevation);
+  CHECK(saved->frame_origin == d03_origin);  // keeps to the frame the visit already uses there
+  CHECK(saved->element == "S1 DS spandrel wall");
+  REQUIRE(saved->points.size() == 1);
+  CHECK(std::abs(saved->points[0].first - 1.0) < 0.01);
+  CHECK(std::abs(saved->points[0].second - 2.2) < 0.01);
 }
 
 TEST_CASE("the rings view derives S1's ring thickness from the face counts of FIELD.md §10") {

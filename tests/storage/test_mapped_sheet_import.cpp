@@ -150,7 +150,7 @@ TEST_CASE("millimetres mapped as metres and metres mapped as millimetres are cau
   CHECK(contains(m, "offset_m=Offset (m)"));
 }
 
-TEST_CASE("a mapping file gives columns and settings; its own mistakes name its line") {
+TEST_CASE("a mapping file gives columns and settings - its own mistakes name its line") {
   const ColumnMapping m = soffit::parse_column_map(
       "soffit-map,1\r\n# level book of the laser level\r\ncolumn,id,Stn\r\ncolumn,station_m,Chainage (m)\r\n"
       "column,offset_mm,Offset mm\r\nmethod,offsets\r\ndatum_rl_m,9.800\r\nz_origin_rl_m,9.500\r\nsigma_mm,3\r\n",
@@ -205,7 +205,7 @@ TEST_CASE("a mapped export stored in a project exports as a Soffit sheet that re
   CHECK(stored.readings.front().source_line == 3);
 }
 
-TEST_CASE("soffit import --map reads a spreadsheet export; bad input exits 2 naming file, line and column") {
+TEST_CASE("soffit import --map reads a spreadsheet export - bad input exits 2 naming file, line and column") {
   TempDir dir;
   const std::string project = dir.file("cli_mapped.soffit");
   const std::string csv = dir.file("level_book.csv");

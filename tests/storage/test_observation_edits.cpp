@@ -95,7 +95,7 @@ TEST_CASE("a ring count is stored with its range and basis, and undo removes it"
   CHECK(p.undo_label() == "ring count");  // refused edits leave no undo step
 }
 
-TEST_CASE("a fill depth observation keeps its method and uncertainty; undo removes it") {
+TEST_CASE("a fill depth observation keeps its method and uncertainty - undo removes it") {
   TempDir dir;
   Project p = Project::create(dir.file("fill.soffit"), "J. Okafor");
   const Visit v = sallow_ford_2019(p);

@@ -134,7 +134,7 @@ TEST_CASE("a PNG is copied byte for byte under its SHA-256 name with a box-avera
   CHECK(media_files(p) == 1);
 }
 
-TEST_CASE("a JPEG from stb_image_write has no EXIF; with an APP1 segment its facts are stored and the thumbnail turned") {
+TEST_CASE("a JPEG from stb_image_write has no EXIF - with an APP1 segment its facts are stored and the thumbnail turned") {
   TempDir dir;
   Project p = Project::create(dir.file("jpeg.soffit"), "J. Okafor");
   const auto plain = jpeg_bytes(320, 200);
@@ -209,7 +209,7 @@ TEST_CASE("empty, corrupt, foreign, oversized and missing files are refused with
   CHECK(p.undo_label() == "");
 }
 
-TEST_CASE("a photo is linked to a defect with a marker, in one undo step; a bad marker is refused") {
+TEST_CASE("a photo is linked to a defect with a marker, in one undo step - a bad marker is refused") {
   TempDir dir;
   Project p = Project::create(dir.file("markers.soffit"), "J. Okafor");
   write_file(dir.file("d08.jpg"), jpeg_bytes(64, 48));

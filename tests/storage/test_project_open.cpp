@@ -98,7 +98,7 @@ TEST_CASE("new UUIDs do not repeat") {
   CHECK(seen.size() == 1000);
 }
 
-TEST_CASE("a large project closed cleanly opens without the page-by-page check; after an unclean close it gets it") {
+TEST_CASE("a large project closed cleanly opens without the page-by-page check - after an unclean close it gets it") {
   TempDir dir;
   const std::string path = dir.file("large.soffit");
   {

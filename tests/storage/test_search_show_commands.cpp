@@ -74,7 +74,7 @@ TEST_CASE("soffit show lists ring counts, fill depths and defects with photo cou
   CHECK(contains(r.out, "longitudinal_crack"));
 }
 
-TEST_CASE("soffit search finds defects and structures; bad input exits 2") {
+TEST_CASE("soffit search finds defects and structures - bad input exits 2") {
   TempDir dir;
   const std::string project = demo(dir);
   auto r = run_soffit("search " + project + " Sallow Ford --json");

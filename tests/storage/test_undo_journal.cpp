@@ -94,7 +94,7 @@ TEST_CASE("undo and redo survive closing and reopening the project") {
   CHECK(find_structure(p.db(), "BVDC-ST-0418").has_value());
 }
 
-TEST_CASE("undoing an import removes the section and its readings; redo restores them exactly") {
+TEST_CASE("undoing an import removes the section and its readings - redo restores them exactly") {
   TempDir dir;
   Project p = Project::create(dir.file("import_undo.soffit"), "J. Okafor");
   const auto sheet = demo_sheet();
