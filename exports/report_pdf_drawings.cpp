@@ -120,8 +120,8 @@ void draw_section_elevation(cairo_t* cr, const ReportBox& box, const SurveySheet
     cairo_set_line_width(cr, 0.5);
     const double dash[] = {2.0, 2.0};
     cairo_set_dash(cr, dash, 2, 0);
-    cairo_move_to(cr, m.px(e.min_x), m.py(analysis.fit->springing_z));
-    cairo_line_to(cr, m.px(e.max_x), m.py(analysis.fit->springing_z));
+    cairo_move_to(cr, m.px(e.min_x), m.py(analysis.fit->outline.z_springing));
+    cairo_line_to(cr, m.px(e.max_x), m.py(analysis.fit->outline.z_springing));
     cairo_stroke(cr);
     cairo_set_dash(cr, nullptr, 0, 0);
   }

@@ -53,7 +53,7 @@ SectionProvenance section_provenance(const SurveySheet& sheet, const ProfileAnal
                               : " (named by the user)";
   p.lines.push_back(shape);
   p.lines.push_back("frame: x along the span, z up, metres; z as reduced from the sheet; springing line at z = " +
-                    fixed_decimal(fit.springing_z, 4) + " m (" +
+                    fixed_decimal(fit.outline.z_springing, 4) + " m (" +
                     (fit.family->springing_from_shape() ? "from the shape"
                      : fit.springing_from_ends        ? "from the end readings"
                                                       : "given") +

@@ -1,4 +1,5 @@
 #include "storage/demo_project.hpp"
+#include "storage/undo_journal.hpp"
 
 #include <filesystem>
 
@@ -97,10 +98,10 @@ const std::vector<DemoDefect>& demo_defects() {
        "active drip after rain, calcite up to 15 mm, stained band 0.8 m wide", DemoMark::patch, {},
        {0.5, 0.5, 0.45, 0.22}},
       {"D07", 2019, 2, "vegetation", "S2 US spandrel wall", F::elevation, kD07, G::area,
-       {{0.5, 0.2}, {5.5, 0.2}, {5.5, 1.2}, {0.5, 1.2}}, {}, {}, {}, 2, "ivy over 40 % of the wall", DemoMark::patch,
+       {{0.2, 1.6}, {5.9, 1.6}, {5.9, 2.3}, {0.2, 2.3}}, {}, {}, {}, 2, "ivy over 40 % of the wall", DemoMark::patch,
        {}, {0.4, 0.4, 0.4, 0.35}},
       {"D07", 2025, 2, "mortar_loss", "S2 US spandrel wall", F::elevation, kD07, G::area,
-       {{1.5, 0.3}, {3.0, 0.3}, {3.0, 1.3}, {1.5, 1.3}}, {}, {}, 1.5, 3,
+       {{0.5, 1.6}, {3.0, 1.6}, {3.0, 2.2}, {0.5, 2.2}}, {}, {}, 1.5, 3,
        "ivy removed 2022; mortar lost up to 40 mm deep over 1.5 m2", DemoMark::patch, {}, {0.5, 0.5, 0.35, 0.3}},
       {"D08", 2019, 0, "scour", "pier, upstream nose", F::elevation, kD08, G::point, {{0.0, 0.05}}, {}, {}, {}, 2,
        "footing top 0.05 m above the bed; beck 0.15 m deep", DemoMark::patch, {}, {0.5, 0.8, 0.2, 0.08}},
@@ -336,6 +337,8 @@ DemoSummary write_demo_project(const std::string& path, const std::string& sheet
 
   p.edit("demo: check 2019", [&](Connection& db) { set_inspection_status(db, author, visit[0], "checked"); });
   p.edit("demo: issue 2019", [&](Connection& db) { set_inspection_status(db, author, visit[0], "issued"); });
+  // The demo is where a new inspector starts: Undo must not take it apart.
+  forget_edit_history(p.db());
   return sum;
 }
 

@@ -28,8 +28,12 @@ void v0_to_v1(Connection& db, const std::string& author) {
 // only, so every layout 1 row stays as it was (and is indexed for search).
 void v1_to_v2(Connection& db, const std::string& /*author*/) { db.exec(schema_v1_to_v2_sql()); }
 
+// 2 → 3: guards only (triggers); no row changes. A layout 2 file whose
+// issued inspection already had its links changed keeps them as they are.
+void v2_to_v3(Connection& db, const std::string& /*author*/) { db.exec(schema_v2_to_v3_sql()); }
+
 // Index k holds the step from version k.
-const std::array<Step, kSchemaVersion> kSteps = {v0_to_v1, v1_to_v2};
+const std::array<Step, kSchemaVersion> kSteps = {v0_to_v1, v1_to_v2, v2_to_v3};
 
 }  // namespace
 

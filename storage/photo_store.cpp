@@ -133,11 +133,12 @@ std::string photo_file_path(const std::string& project_path, const std::string& 
   return media_folder(project_path) + "/" + file_name;
 }
 
-PhotoRecord add_photo(Project& project, const std::string& path, const PhotoOptions& options) {
-  if (project.access() != Access::edit)
-    throw StorageError(ErrorKind::read_only, project.path(), "the project is open for viewing only");
+PreparedPhoto prepare_photo(const std::string& project_path, const std::string& path) {
+  PreparedPhoto prepared;
+  prepared.project_path = project_path;
+  prepared.original_name = fs::path(path).filename().string();
+  PhotoRecord& r = prepared.record;
   const std::vector<uint8_t> bytes = read_photo_bytes(path);
-  PhotoRecord r;
   r.image_format = format_of(bytes);
   if (r.image_format.empty()) refuse(path, "not a JPEG or PNG photo");
   const RgbImage image = decode(path, bytes);
@@ -145,8 +146,6 @@ PhotoRecord add_photo(Project& project, const std::string& path, const PhotoOpti
   r.height_px = image.height;
   r.byte_size = static_cast<long long>(bytes.size());
   r.content_hash = sha256_hex(bytes.data(), bytes.size());
-  if (auto existing = stored_photo(project.db(), r.content_hash)) return *existing;
-
   if (r.image_format == "jpeg") {
     const ExifFacts exif = read_jpeg_exif(bytes.data(), bytes.size());
     r.exif_taken_at = exif.taken_at;
@@ -154,15 +153,28 @@ PhotoRecord add_photo(Project& project, const std::string& path, const PhotoOpti
     r.exif_longitude_deg = exif.longitude_deg;
     r.exif_orientation = exif.orientation;
   }
-  const std::vector<uint8_t> thumbnail =
+  prepared.thumbnail_png =
       encode_png(apply_exif_orientation(box_average_down(image, kThumbnailSide), r.exif_orientation.value_or(1)));
   r.file_name = r.content_hash + (r.image_format == "jpeg" ? ".jpg" : ".png");
+  // Content-addressed: the same bytes added before are already there and are not written again.
+  prepared.created_media_file = store_original(media_folder(project_path), r.file_name, bytes);
+  return prepared;
+}
 
-  const std::string folder = media_folder(project.path());
-  const bool created = store_original(folder, r.file_name, bytes);
+PhotoRecord insert_prepared_photo(Project& project, const PreparedPhoto& prepared, const PhotoOptions& options) {
+  PhotoRecord r = prepared.record;
   try {
+    if (prepared.project_path != project.path())
+      throw StorageError(ErrorKind::invalid, project.path(),
+                         "photo " + prepared.original_name + " was prepared for another project (" +
+                             prepared.project_path + ")");
+    if (project.access() != Access::edit)
+      throw StorageError(ErrorKind::read_only, project.path(), "the project is open for viewing only");
+    // A copy made now for a row that exists restores that row's file: it stays.
+    if (auto existing = stored_photo(project.db(), r.content_hash)) return *existing;
     r.id = new_uuid();
-    project.edit("add photo " + fs::path(path).filename().string(), [&](Connection& db) {
+    r.already_present = false;
+    project.edit("add photo " + prepared.original_name, [&](Connection& db) {
       const std::string now = utc_now();
       Statement ins(db,
                     "INSERT INTO photo (id, inspection_id, content_hash, original_name, byte_size, exif_taken_at, "
@@ -170,20 +182,31 @@ PhotoRecord add_photo(Project& project, const std::string& path, const PhotoOpti
                     "width_px, height_px, thumbnail_png, created_at, modified_at, author) "
                     "VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, ?11, ?12, ?13, ?14, ?15, ?16, ?16, ?17)");
       ins.bind_all(r.id, options.inspection_id.empty() ? std::nullopt : std::optional(options.inspection_id),
-                   r.content_hash, fs::path(path).filename().string(), r.byte_size, r.exif_taken_at,
-                   r.exif_latitude_deg, r.exif_longitude_deg, r.exif_orientation,
+                   r.content_hash, prepared.original_name, r.byte_size, r.exif_taken_at, r.exif_latitude_deg,
+                   r.exif_longitude_deg, r.exif_orientation,
                    options.caption.empty() ? std::nullopt : std::optional(options.caption), r.file_name,
                    r.image_format, r.width_px, r.height_px);
-      ins.bind_blob(15, thumbnail.data(), static_cast<int>(thumbnail.size()));
+      ins.bind_blob(15, prepared.thumbnail_png.data(), static_cast<int>(prepared.thumbnail_png.size()));
       ins.bind(16, now).bind(17, project.author());
       ins.run();
     });
   } catch (...) {
-    // No row refers to a file this call created: take it away again.
-    if (created) fs::remove(photo_file_path(project.path(), r.file_name));
+    // No row refers to a file this import created: take it away again. A
+    // file that was there before is left alone.
+    if (prepared.created_media_file) {
+      std::error_code ec;
+      fs::remove(photo_file_path(prepared.project_path, r.file_name), ec);
+    }
     throw;
   }
   return r;
+}
+
+PhotoRecord add_photo(Project& project, const std::string& path, const PhotoOptions& options) {
+  // Checked first so that a project open for viewing gets no media folder.
+  if (project.access() != Access::edit)
+    throw StorageError(ErrorKind::read_only, project.path(), "the project is open for viewing only");
+  return insert_prepared_photo(project, prepare_photo(project.path(), path), options);
 }
 
 std::string link_photo_to_defect(Connection& db, const std::string& author, const std::string& photo_id,

@@ -4,7 +4,9 @@
 // never touched again; the register keeps its size, EXIF date, position and
 // orientation, and a thumbnail. Markers link a photo to the defects in it.
 #include <optional>
+#include <cstdint>
 #include <string>
+#include <vector>
 
 #include "storage/project_file.hpp"
 
@@ -35,10 +37,34 @@ struct PhotoRecord {
 std::string media_folder(const std::string& project_path);
 std::string photo_file_path(const std::string& project_path, const std::string& file_name);
 
-// One edit (one undo step). Refuses, with StorageError(invalid) naming the
-// file and leaving no row and no new file, a missing, empty, oversized,
-// not-JPEG-or-PNG or undecodable file. Adding the same bytes again returns
-// the stored photo (already_present).
+// Adding a photo happens in two halves so that the slow half never touches
+// the project's connection (which belongs to the UI thread, DEVELOPERS.md):
+// prepare_photo reads, checks, decodes and hashes the file, reads its EXIF,
+// makes the thumbnail and copies the original into the media folder;
+// insert_prepared_photo then stores the row as one edit.
+struct PreparedPhoto {
+  std::string project_path;   // whose media folder holds the copy
+  std::string original_name;  // the name it was added under, e.g. IMG_0001.JPG
+  PhotoRecord record;         // every fact but the row's id
+  std::vector<uint8_t> thumbnail_png;
+  bool created_media_file = false;  // this preparation wrote the copy (it was not there before)
+};
+
+// Files only, no Connection: safe on a worker while the project stays open
+// on the UI thread. Refuses, with StorageError(invalid) naming the file and
+// writing nothing, a missing (not_found), empty, oversized,
+// not-JPEG-or-PNG or undecodable file. The copy is written through a
+// temporary file and renamed, so the media folder never holds half a photo.
+PreparedPhoto prepare_photo(const std::string& project_path, const std::string& path);
+
+// UI thread. If the same bytes are stored already, returns that photo
+// (already_present) and stores nothing; else inserts the row as one edit
+// (one undo step). If it fails, the media file is removed again, but only if
+// prepare_photo created it: a copy that was there before may belong to a row.
+PhotoRecord insert_prepared_photo(Project& project, const PreparedPhoto& prepared, const PhotoOptions& options = {});
+
+// prepare_photo then insert_prepared_photo, for the command line and tests.
+// A project open for viewing is refused before the media folder is written.
 PhotoRecord add_photo(Project& project, const std::string& path, const PhotoOptions& options = {});
 
 // Marks where on the photo the defect is: x, y from 0 to 1 across and down

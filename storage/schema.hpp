@@ -5,6 +5,8 @@
 //      readings, ring counts, fill depths, defects, photos, fit cache, undo journal
 //   2  photo image facts (file name, format, pixel size, thumbnail); FTS5
 //      search over structures, inspection notes and defects (schema_v2.cpp)
+//   3  an issued inspection's photos and photo-defect links are read-only
+//      too (schema_v3.cpp)
 #include <string>
 
 namespace soffit::storage {
@@ -12,7 +14,7 @@ namespace soffit::storage {
 // PRAGMA application_id of every Soffit project: "SOFF" in ASCII. Any other
 // value means the file belongs to another program and is never written.
 inline constexpr int kApplicationId = 0x534F4646;
-inline constexpr int kSchemaVersion = 2;
+inline constexpr int kSchemaVersion = 3;
 
 // Creates every table, index and trigger of layout 1 in an empty database.
 // A new project runs this and then every later migration step, so that a new
@@ -21,6 +23,9 @@ const std::string& schema_v1_sql();
 
 // The step from layout 1 to 2 (schema_v2.cpp).
 const std::string& schema_v1_to_v2_sql();
+
+// The step from layout 2 to 3 (schema_v3.cpp).
+const std::string& schema_v2_to_v3_sql();
 
 // Tables whose rows are the user's work: the undo journal records changes to
 // these and no others (derived data such as the fit cache is rebuilt instead).

@@ -133,4 +133,11 @@ std::string next_redo_label(Connection& db) {
   return label_of(db, "SELECT label FROM edit_journal WHERE undone = 1 ORDER BY seq ASC LIMIT 1");
 }
 
+std::string journal_state(Connection& db) {
+  Statement q(db, "SELECT coalesce(max(seq), 0) || ':' || coalesce(sum(undone), 0) FROM edit_journal");
+  return q.step() ? q.column_text(0) : std::string();
+}
+
+void forget_edit_history(Connection& db) { Statement(db, "DELETE FROM edit_journal").run(); }
+
 }  // namespace soffit::storage

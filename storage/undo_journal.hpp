@@ -28,6 +28,14 @@ bool undo_last_edit(Connection& db);
 bool redo_next_edit(Connection& db);
 
 std::string next_undo_label(Connection& db);
+
+// Changes whenever an edit is made, undone or redone: views that show
+// something derived (a fit of the latest visit) compare it to know when to redo it.
+std::string journal_state(Connection& db);
+
+// Drops every entry: what the file holds now is where undo stops (a project
+// written by the app itself, such as the demo, starts with nothing to undo).
+void forget_edit_history(Connection& db);
 std::string next_redo_label(Connection& db);
 
 }  // namespace soffit::storage

@@ -88,8 +88,18 @@ void DefectsView::open(storage::Project& project, const std::string& structure_r
   }
 }
 
+void DefectsView::reload() {
+  if (!data_.loaded()) return;
+  try {
+    data_.reload();
+  } catch (const std::exception& e) {
+    message_ = std::string("Reading the visit again: ") + e.what();
+  }
+}
+
 void DefectsView::close() {
   data_ = app::InspectionData();
+  photos_wanted_.reset();
   selected_id_.clear();
   pending_.reset();
   corners_.clear();
@@ -157,11 +167,17 @@ void DefectsView::draw() {
   draw_toolbar(elevations);
   if (barrels.empty()) {
     ImGui::TextWrapped("This structure has no spans recorded, so there is no barrel to draw.");
+    send_photos_request();
     return;
   }
   draw_modes();
   const float f = ImGui::GetFontSize();
-  const float height = std::max(f * 8.0f, ImGui::GetContentRegionAvail().y - f * 4.0f);
+  const app::BarrelFrame& barrel = barrels[span_];
+  const auto notes = elevation ? app::placement_notes(*elevation, data_.elevation_defects(*elevation))
+                               : app::placement_notes(barrel, data_.soffit_defects(barrel.span_id));
+  // Room under the drawing for the notes (a line each, more when one wraps) and the selection.
+  const float note_rows = notes.empty() ? 0.0f : 0.4f + 1.3f * static_cast<float>(notes.size());
+  const float height = std::max(f * 8.0f, ImGui::GetContentRegionAvail().y - f * (4.0f + note_rows));
   if (elevation) {
     Plane p;
     p.a_min = elevation->x_min;
@@ -183,7 +199,6 @@ void DefectsView::draw() {
     draw_surface(p, data_.elevation_defects(*elevation), elevation->place(), where, height,
                  [&](ImDrawList* d, ImVec2 tl, ImVec2 n, ImVec2 fa) { decorate_elevation(*elevation, d, tl, n, fa); });
   } else {
-    const app::BarrelFrame& barrel = barrels[span_];
     Plane p;
     p.a_max = barrel.arc_length_m;
     p.b_max = barrel.width_m;
@@ -192,10 +207,31 @@ void DefectsView::draw() {
     draw_surface(p, data_.soffit_defects(barrel.span_id), barrel.place(), barrel.span_label + " barrel", height,
                  [&](ImDrawList* d, ImVec2 tl, ImVec2 n, ImVec2 fa) { decorate_barrel(barrel, d, tl, n, fa); });
   }
+  draw_placement_notes(notes);
   draw_selection();
   draw_new_defect_popup();
   draw_edit_popup();
   draw_delete_popup();
+  send_photos_request();
+}
+
+void DefectsView::send_photos_request() {
+  // Last in the frame, so that the owner may close this view or open another screen from the callback.
+  if (!photos_wanted_) return;
+  const std::optional<std::string> defect = *photos_wanted_;
+  photos_wanted_.reset();
+  if (photos_request_ && data_.loaded()) photos_request_(data_.data().inspection.id, defect);
+}
+
+void DefectsView::draw_placement_notes(const std::vector<app::PlacementNote>& notes) {
+  if (notes.empty()) return;
+  // Shown beside the drawing, never acted on: the inspector decides whether the mark or the frame is wrong.
+  ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().caution));
+  for (size_t i = 0; i < notes.size(); ++i) {
+    ImGui::TextWrapped("%s", notes[i].text.c_str());
+    if (i == 0) probe("placement notes");
+  }
+  ImGui::PopStyleColor();
 }
 
 void DefectsView::draw_toolbar(const std::vector<app::ElevationFrame>& elevations) {
@@ -229,6 +265,16 @@ void DefectsView::draw_toolbar(const std::vector<app::ElevationFrame>& elevation
       hint_.clear();
     }
     probe("surface:" + name);
+  }
+  if (photos_request_) {
+    // On the same row when it fits, else on a row of its own: never off the edge with large text.
+    const char* label = "Photos of this visit...";
+    const ImGuiStyle& style = ImGui::GetStyle();
+    const float wanted = ImGui::CalcTextSize(label).x + style.FramePadding.x * 2 + ImGui::GetFontSize() * 1.5f;
+    const float right = ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x;
+    if (ImGui::GetItemRectMax().x + wanted <= right) ImGui::SameLine(0, ImGui::GetFontSize() * 1.5f);
+    if (ImGui::Button(label)) photos_wanted_ = std::optional<std::string>();
+    probe("photos:visit");
   }
   if (!message_.empty()) ImGui::TextWrapped("%s", message_.c_str());
 }
@@ -432,13 +478,20 @@ void DefectsView::decorate_elevation(const app::ElevationFrame& e, ImDrawList* d
   if (e.intrados.size() >= 3) {
     std::vector<ImVec2> pts;
     for (const auto& [x, z] : e.intrados) pts.push_back(to_screen(x, std::max(z, plane_.b_min)));
+    // The opening itself lightly shaded, so that a mark drawn in it reads as off the wall.
+    draw_area_fill(draw, pts.data(), static_cast<int>(pts.size()), c.faint_ink);
     draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), c.faint_ink, false, 2.0f);
-    const ImVec2 crown = to_screen((e.intrados.front().first + e.intrados.back().first) / 2, 0);
+    const float cx = to_screen((e.intrados.front().first + e.intrados.back().first) / 2, 0).x;
+    const double rise = std::max_element(e.intrados.begin(), e.intrados.end(), [](const auto& a, const auto& b) {
+                          return a.second < b.second;
+                        })->second;
     const char* label = "intrados (surveyed)";
-    const float y = to_screen(0, std::max_element(e.intrados.begin(), e.intrados.end(), [](const auto& a, const auto& b) {
-                                   return a.second < b.second;
-                                 })->second).y;
-    draw->AddText(ImVec2(crown.x - ImGui::CalcTextSize(label).x / 2, y + f * 0.3f), c.faint_ink, label);
+    const float crown_y = to_screen(0, rise).y;
+    draw->AddText(ImVec2(cx - ImGui::CalcTextSize(label).x / 2, crown_y - f * 1.3f), c.faint_ink, label);
+    const char* opening = "arch opening";
+    const float opening_y = to_screen(0, std::max(0.0, plane_.b_min)).y - f * 1.4f;
+    if (opening_y > crown_y + f * 0.2f)
+      draw->AddText(ImVec2(cx - ImGui::CalcTextSize(opening).x / 2, opening_y), c.faint_ink, opening);
   }
   // z = 0 (springing line or footing top) when the surface reaches below it.
   if (plane_.b_min < 0 && plane_.b_max > 0) {
@@ -471,7 +524,7 @@ void DefectsView::decorate_elevation(const app::ElevationFrame& e, ImDrawList* d
                            (e.seen_from_downstream ? " (so x = 0 is on the right)" : "");
   draw->AddText(ImVec2(near.x + scale_ + f * 0.8f, far.y + f * 1.6f - f * 0.5f), c.ink, note.c_str());
   // The frame, and where the drawn size came from: a stand-in size is in the caution colour.
-  const float text_x = top_left.x + f * 0.5f;
+  const float text_x = top_left.x;  // in line with the placement notes under it
   const std::string frame = "Frame: " + e.origin + ".";
   draw->AddText(ImGui::GetFont(), f, ImVec2(text_x, far.y + f * 2.8f), c.faint_ink, frame.c_str(), nullptr,
                 wrap_width(text_x));
@@ -647,6 +700,16 @@ void DefectsView::draw_selection() {
     open_edit_ = true;
   }
   probe("edit");
+  if (photos_request_) {
+    ImGui::SameLine();
+    // The count on the button itself, so it is seen before the tap (FIELD.md §6.3: an overall view and a close-up per defect).
+    const int n = chosen->defect.photo_count;
+    const std::string label = n == 0   ? "No photos of " + f.ref + " yet..."
+                              : n == 1 ? "1 photo of " + f.ref + "..."
+                                       : std::to_string(n) + " photos of " + f.ref + "...";
+    if (ImGui::Button((label + "###photos").c_str())) photos_wanted_ = chosen->id;
+    probe("photos:defect");
+  }
   ImGui::SameLine();
   if (ImGui::Button(("Delete " + f.ref + "...").c_str())) open_delete_ = true;
   probe("delete");
@@ -662,7 +725,8 @@ void DefectsView::draw_selection() {
     text += std::string(", area ") + buf;
   }
   if (f.width_mm) text += ", width " + millimetres(*f.width_mm);
-  if (chosen->defect.photo_count > 0) text += ", " + std::to_string(chosen->defect.photo_count) + " photo(s)";
+  if (!photos_request_ && chosen->defect.photo_count > 0)  // else the Photos button says it
+    text += ", " + std::to_string(chosen->defect.photo_count) + " photo(s)";
   if (!f.notes.empty()) text += ". " + f.notes;
   ImGui::SameLine();
   ImGui::TextWrapped("%s", text.c_str());
@@ -694,7 +758,11 @@ void DefectsView::draw_defect_form(storage::DefectGeometry geometry) {
     ImGui::SameLine();
     const std::string shown = draft_.width_mm ? millimetres(*draft_.width_mm) : std::string("not measured");
     if (ImGui::Button((shown + "###width").c_str(), ImVec2(f * 8.0f, f * 2.2f))) {
-      keypad_.begin("Width (mm)", draft_.width_mm.value_or(0.0), draft_.width_mm ? 2 : 0);
+      // A width not yet measured starts empty: nothing to delete before typing it.
+      if (draft_.width_mm)
+        keypad_.begin("Width (mm)", *draft_.width_mm, 2);
+      else
+        keypad_.begin_text("Width (mm)", "");
       ImGui::OpenPopup(keypad_.popup_id().c_str());
     }
     probe("width");

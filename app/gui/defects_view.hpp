@@ -11,6 +11,7 @@
 #include <functional>
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include <imgui.h>
@@ -23,12 +24,21 @@ namespace soffit::gui {
 
 class DefectsView {
  public:
+  // Asks the owner to show photos: of the visit, or of one of its defects
+  // (database keys). Called at the end of draw(), never in the middle of it.
+  using PhotosRequest =
+      std::function<void(const std::string& inspection_id, const std::optional<std::string>& defect_id)>;
+
   // Shows the visit on `date` (nullopt: the latest) of `structure_ref`. The
   // project must stay open while the view shows it (call close() before).
   // A visit that cannot be read is shown as a message, never thrown.
   void open(storage::Project& project, const std::string& structure_ref,
             const std::optional<std::string>& date = std::nullopt);
   void close();
+  // Reads the visit again, e.g. after the photo viewer linked photos to its defects.
+  void reload();
+  // Without one, the Photos buttons are not drawn.
+  void set_photos_request(PhotosRequest request) { photos_request_ = std::move(request); }
   // Draws into the current window, filling the available space.
   void draw();
 
@@ -84,6 +94,8 @@ class DefectsView {
   void start_pending(const app::DefectPlace& place, const std::string& where, storage::DefectGeometry geometry,
                      app::PlanePath points);
   void draw_selection();
+  void send_photos_request();
+  void draw_placement_notes(const std::vector<app::PlacementNote>& notes);
   void draw_defect_form(storage::DefectGeometry geometry);
   void draw_new_defect_popup();
   void draw_edit_popup();
@@ -95,6 +107,8 @@ class DefectsView {
   bool on_plane(ImVec2 p) const;
 
   app::InspectionData data_;
+  PhotosRequest photos_request_;
+  std::optional<std::optional<std::string>> photos_wanted_;  // set by a Photos button, sent at the end of draw()
   size_t span_ = 0;
   std::string surface_ = "Barrel";
   std::string selected_id_;

@@ -15,7 +15,9 @@
 #include <string>
 
 #include "app/gui/gui_options.hpp"
+#include "app/gui/flow_layout.hpp"
 #include "app/gui/legend.hpp"
+#include "app/gui/touch_scroll.hpp"
 #include "app/gui/screenshot.hpp"
 #include "app/gui/project_screens.hpp"
 #include "app/gui/gl_texture.hpp"
@@ -39,32 +41,32 @@ struct AppState {
   float scale = 1.0f;
   bool restyle = true;
   bool show_frame_time = false;
-  ProjectScreens screens{kAssets, author_name()};
-  PhotoViewer photos{make_gl_texture_factory()};  // drawn instead of the screens while open
+  ProjectScreens screens{kAssets, author_name(), make_gl_texture_factory()};
 };
 
 void draw_top_bar(AppState& s) {
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Soffit");
-  ImGui::SameLine();
-  if (ImGui::Button(s.theme == Theme::sunlight ? "Shade theme" : "Sunlight theme")) {
+  const char* theme_label = s.theme == Theme::sunlight ? "Shade theme" : "Sunlight theme";
+  same_line_if_fits(theme_label);
+  if (ImGui::Button(theme_label)) {
     s.theme = s.theme == Theme::sunlight ? Theme::shade : Theme::sunlight;
     s.restyle = true;
   }
-  ImGui::SameLine();
+  same_line_if_fits("Text -");
   if (ImGui::Button("Text -") && s.scale > 0.76f) s.scale = std::max(0.75f, s.scale - 0.25f), s.restyle = true;
-  ImGui::SameLine();
+  same_line_if_fits("Text +");
   if (ImGui::Button("Text +") && s.scale < 2.49f) s.scale = std::min(2.5f, s.scale + 0.25f), s.restyle = true;
-  ImGui::SameLine();
+  same_line_if_fits("scale 0.00");
   ImGui::AlignTextToFramePadding();
   ImGui::Text("scale %.2f", s.scale);
-  ImGui::SameLine();
+  same_line_if_fits("Legend");
   if (ImGui::Button("Legend")) ImGui::OpenPopup("Legend");
   draw_legend_popup("Legend");
-  ImGui::SameLine();
+  same_line_if_fits("[] Frame time");
   ImGui::Checkbox("Frame time", &s.show_frame_time);
   if (s.show_frame_time) {
-    ImGui::SameLine();
+    same_line_if_fits("00.0 ms/frame");
     ImGui::AlignTextToFramePadding();
     ImGui::Text("%.1f ms/frame", 1000.0f / std::max(ImGui::GetIO().Framerate, 1e-3f));
   }
@@ -115,8 +117,8 @@ int run_gui(const GuiOptions& options) {
       state.screens.defects.show_for_screenshot("S1", "DS spandrel", "D03");
     } else if (options.view == "photos") {
       state.screens.open_first_defects();
-      if (auto* project = state.screens.session().project(); project && state.screens.defects.data().loaded())
-        state.photos.open(*project, state.screens.defects.data().data().inspection.id);
+      if (state.screens.defects.data().loaded())
+        state.screens.open_photos(state.screens.defects.data().data().inspection.id);
     } else if (options.view == "rings") {
       state.screens.open_first_rings_fill();
     } else if (options.view == "change") {
@@ -126,6 +128,9 @@ int run_gui(const GuiOptions& options) {
     } else if (options.view == "structure") {
       state.screens.open_first_sections();
       state.screens.screen = Screen::structure;
+    } else if (options.view == "new-section") {
+      state.screens.open_first_sections();
+      state.screens.open_new_section_form();
     } else if (options.view == "add-structure") {
       state.screens.open_add_structure();
     } else if (options.view != "register") {
@@ -137,7 +142,7 @@ int run_gui(const GuiOptions& options) {
   const bool capturing = !options.screenshot_path.empty();
   int frame = 0, settled = 0, exit_code = 0;
   while (!glfwWindowShouldClose(window)) {
-    if (capturing || state.screens.sections.busy() || state.photos.busy())
+    if (capturing || state.screens.busy())
       glfwPollEvents();
     else
       glfwWaitEventsTimeout(0.5);
@@ -149,7 +154,7 @@ int run_gui(const GuiOptions& options) {
       state.restyle = false;
     }
     state.screens.sections.poll();
-    state.photos.poll();
+    state.screens.photos.poll();
 
     ImGui_ImplOpenGL3_NewFrame();
     ImGui_ImplGlfw_NewFrame();
@@ -162,10 +167,8 @@ int run_gui(const GuiOptions& options) {
     draw_top_bar(state);
     state.screens.draw_tabs();
     ImGui::Separator();
-    if (state.photos.is_open())
-      state.photos.draw();
-    else
-      state.screens.draw_current();
+    state.screens.draw_current();
+    drag_to_scroll();  // at a large text scale the screen itself is longer than the window
     ImGui::End();
     ImGui::Render();
 
@@ -181,7 +184,7 @@ int run_gui(const GuiOptions& options) {
     const bool waiting = (state.screens.screen == Screen::section &&
                           (state.screens.sections.busy() || !state.screens.sections.analysis())) ||
                          (state.screens.screen == Screen::compare && !state.screens.changes());
-    settled = waiting || state.photos.busy() ? 0 : settled + 1;
+    settled = waiting || state.screens.busy() ? 0 : settled + 1;
     // Capture once the fit has arrived and a few frames have settled the layout
     // (a dialog opened for the screenshot appears a frame after it is asked for).
     if (capturing && ((frame >= options.screenshot_frames && settled >= 4) || frame > 600)) {
@@ -194,7 +197,7 @@ int run_gui(const GuiOptions& options) {
     glfwSwapBuffers(window);
   }
 
-  state.photos.close();  // its textures go while the GL context exists
+  state.screens.photos.close();  // its textures go while the GL context exists
   ImGui_ImplOpenGL3_Shutdown();
   ImGui_ImplGlfw_Shutdown();
   ImGui::DestroyContext();

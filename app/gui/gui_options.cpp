@@ -22,7 +22,7 @@ bool parse_gui_options(int argc, char** argv, GuiOptions& options, std::string& 
       if (!v) return error = "--view needs a view name", false;
       options.view = v;
       // One list for the check and the message (the README lists the same names).
-      static const char* views[] = {"start",   "register", "add-structure", "structure", "section", "keypad",
+      static const char* views[] = {"start",   "register", "add-structure", "structure", "new-section", "section", "keypad",
                                     "keyboard", "exclude", "defects",       "elevation", "photos",  "rings",
                                     "change"};
       if (std::find(std::begin(views), std::end(views), options.view) == std::end(views)) {

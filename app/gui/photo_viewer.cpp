@@ -101,8 +101,14 @@ void PhotoViewer::open(storage::Project& project, const std::string& inspection_
 }
 
 void PhotoViewer::close() {
-  if (import_job_.valid()) import_job_.wait();  // it writes to the project: let it finish
+  // The worker may have copied the original into the media folder: store its
+  // row now rather than leave the file without one.
+  if (import_job_.valid() && project_) {
+    import_job_.wait();
+    finish_import();
+  }
   import_job_ = {};
+  close_requested_ = false;
   folder_job_ = {};
   loader_.clear();
   for (auto& [key, picture] : pictures_)
@@ -264,7 +270,7 @@ void PhotoViewer::run(const char* what, const std::function<void()>& action) {
 }
 
 void PhotoViewer::change(const std::string& label, const std::function<void(storage::Connection&)>& edit) {
-  if (!project_ || holds_project()) return;
+  if (!project_) return;
   run("Not saved", [&] {
     project_->edit(label, edit);
     saved_note_ = "Saved to " + fs::path(project_->path()).filename().string() + ": " + label + ".";
@@ -280,12 +286,22 @@ void PhotoViewer::finish_import() {
     result.error = e.what();
   }
   import_job_ = {};
-  if (!result.record) {
+  // The worker only prepared the file; the row is stored here, on the UI
+  // thread that owns the connection, as one edit.
+  std::optional<storage::PhotoRecord> stored;
+  if (result.prepared) {
+    try {
+      stored = storage::insert_prepared_photo(*project_, *result.prepared, import_options_);
+    } catch (const std::exception& e) {
+      result.error = e.what();
+    }
+  }
+  if (!stored) {
     message_ = "Photo not added: " + result.error;
     reload();
     return;
   }
-  const storage::PhotoRecord& r = *result.record;
+  const storage::PhotoRecord& r = *stored;
   const std::string media = fs::path(storage::media_folder(project_->path())).filename().string();
   saved_note_ = r.already_present ? result.file_name + " was already in the project; nothing new was stored."
                                   : "Copied " + result.file_name + " into " + media + " and saved it to the visit.";
@@ -317,8 +333,11 @@ void PhotoViewer::finish_import() {
     }
   }
   reload();
-  for (size_t i = 0; i < visit_.photos.size(); ++i)
-    if (visit_.photos[i].id == r.id) select_photo(i);
+  // The new photo is shown, unless the person is marking a defect on another
+  // one meanwhile: their next tap belongs to the photo they are looking at.
+  if (marking_defect_.empty())
+    for (size_t i = 0; i < visit_.photos.size(); ++i)
+      if (visit_.photos[i].id == r.id) select_photo(i);
 }
 
 // ---------------------------------------------------------------- drawing
@@ -346,7 +365,9 @@ void PhotoViewer::draw() {
   draw_choose_defect_popup();
   draw_unlink_popup();
   draw_import_popup();
-  if (close_requested_) {
+  // While a photo is being prepared, closing waits for it (poll() stores it)
+  // rather than make this frame wait on the disk.
+  if (close_requested_ && !importing()) {
     close_requested_ = false;
     close();
   }
@@ -356,16 +377,15 @@ void PhotoViewer::draw_toolbar() {
   const Palette& c = palette();
   ImGui::AlignTextToFramePadding();
   ImGui::Text("Photos of the visit on %s (%s)", visit_.date.c_str(), visit_.status.c_str());
-  const bool locked = holds_project() || read_only();
   same_line_if_fits(button_width("Close photos"));
-  ImGui::BeginDisabled(holds_project());
   if (ImGui::Button("Close photos")) close_requested_ = true;
   probe("close photos");
-  ImGui::EndDisabled();
   same_line_if_fits(button_width("Add photo..."));
-  ImGui::BeginDisabled(locked);
+  ImGui::BeginDisabled(read_only());
+  ImGui::BeginDisabled(importing());  // one import at a time
   if (ImGui::Button("Add photo...")) open_import_ = true;
   probe("add photo");
+  ImGui::EndDisabled();
   same_line_if_fits(button_width("Mark a defect"));
   ImGui::BeginDisabled(!shown() || visit_.defects.empty());
   if (ImGui::Button("Mark a defect")) open_choose_ = true;
@@ -373,7 +393,7 @@ void PhotoViewer::draw_toolbar() {
   ImGui::EndDisabled();
   ImGui::EndDisabled();
   same_line_if_fits(button_width("Undo"));
-  ImGui::BeginDisabled(holds_project() || undo_label_.empty());
+  ImGui::BeginDisabled(undo_label_.empty());
   if (ImGui::Button("Undo")) {
     run("Undo", [&] { project_->undo(); });
     reload();
@@ -381,7 +401,7 @@ void PhotoViewer::draw_toolbar() {
   probe("undo");
   ImGui::EndDisabled();
   same_line_if_fits(button_width("Redo"));
-  ImGui::BeginDisabled(holds_project() || redo_label_.empty());
+  ImGui::BeginDisabled(redo_label_.empty());
   if (ImGui::Button("Redo")) {
     run("Redo", [&] { project_->redo(); });
     reload();
@@ -397,7 +417,9 @@ void PhotoViewer::draw_toolbar() {
   if (read_only())
     ImGui::TextWrapped("This visit is issued and read-only: photos and markers are shown, not changed. A correction is "
                        "a new revision of the visit.");
-  if (import_job_.valid()) ImGui::TextWrapped("Adding the photo: copying it into the project and checking it...");
+  if (importing())
+    ImGui::TextWrapped(close_requested_ ? "Adding the photo: the photos close once it is stored..."
+                                        : "Adding the photo: copying it into the project and checking it...");
   if (!saved_note_.empty()) ImGui::TextWrapped("%s", saved_note_.c_str());
   if (!message_.empty()) {
     ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(c.residual_below));
@@ -524,7 +546,7 @@ void PhotoViewer::draw_photo(ImVec2 size) {
       const std::string where = l.marker ? "" : l.marker_problem.empty() ? " (whole photo)" : " (marker unreadable)";
       const std::string label = l.defect_ref + where + ": remove link...";
       same_line_if_fits(button_width(label));
-      ImGui::BeginDisabled(holds_project() || read_only());
+      ImGui::BeginDisabled(read_only());
       if (ImGui::Button(label.c_str())) {
         unlinking_ = {l.defect_id, l.defect_ref};
         open_unlink_ = true;
@@ -673,20 +695,19 @@ void PhotoViewer::draw_import_popup() {
   // FIELD.md §6.3: what a survey photo needs to be repeatable next visit.
   ImGui::TextDisabled("Say which way it looks (\"looking N\"; soffit: \"looking up, top = DS face\").");
   ImGui::TextDisabled("The original is copied into the project unchanged, EXIF kept.");
-  ImGui::BeginDisabled(import_path_[0] == '\0' || holds_project());
+  ImGui::BeginDisabled(import_path_[0] == '\0' || importing());
   if (ImGui::Button("Add", ImVec2(f * 6.0f, f * 2.2f))) {
-    storage::Project* project = project_;
-    const std::string path = import_path_;
-    storage::PhotoOptions options{visit_.inspection_id, import_caption_};
+    const std::string project_path = project_->path(), path = import_path_;
+    import_options_ = storage::PhotoOptions{visit_.inspection_id, import_caption_};
     marking_defect_.clear();
-    // add_photo reads, hashes and decodes the whole file: seconds for a big
-    // one, so it runs on a worker; until it is done this view leaves the
-    // project alone (holds_project), and so must every other view.
-    import_job_ = std::async(std::launch::async, [project, path, options] {
+    // Reading, hashing, decoding and copying a big photo takes seconds, so it
+    // runs on a worker. The worker gets paths, never the project: the
+    // connection stays with this thread, and poll() stores the row.
+    import_job_ = std::async(std::launch::async, [project_path, path] {
       ImportResult r;
       r.file_name = fs::path(path).filename().string();
       try {
-        r.record = storage::add_photo(*project, path, options);
+        r.prepared = storage::prepare_photo(project_path, path);
       } catch (const std::exception& e) {
         r.error = e.what();
       }

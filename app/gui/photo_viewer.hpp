@@ -6,9 +6,11 @@
 // only after a confirmation. "Add photo…" copies a file into the project.
 //
 // Nothing here waits on the disk: thumbnails and photos are decoded by a
-// PhotoLoader on its worker, and an import runs on a std::async worker. Call
-// poll() once a frame on the UI thread (it uploads finished images as
-// textures), then draw().
+// PhotoLoader on its worker, and an import prepares the file (check, decode,
+// hash, thumbnail, copy into the media folder) on a std::async worker that
+// never touches the project's connection. Call poll() once a frame on the UI
+// thread (it stores a prepared photo as one edit and uploads finished images
+// as textures), then draw().
 #include <functional>
 #include <future>
 #include <map>
@@ -23,6 +25,7 @@
 #include "app/gui/gl_texture.hpp"
 #include "app/model/photo_loader.hpp"
 #include "storage/photo_queries.hpp"
+#include "storage/photo_store.hpp"
 #include "storage/project_file.hpp"
 
 namespace soffit::gui {
@@ -42,20 +45,21 @@ class PhotoViewer {
   // project must stay open while shown. Problems are shown, never thrown.
   void open(storage::Project& project, const std::string& inspection_id,
             const std::optional<std::string>& focus_defect_id = std::nullopt);
-  void close();  // waits for an import under way, then frees every texture
+  // Waits for an import under way and stores it (so a copied original is never
+  // left without its row), then frees every texture. The project must still be open.
+  void close();
   bool is_open() const { return project_ != nullptr; }
 
   void poll();  // UI thread, once a frame, before draw()
   // Into the current window, filling the space left. Its "Close photos"
-  // button calls close() at the end of the frame: draw the screen behind it
-  // again once is_open() is false.
+  // button calls close() at the end of the frame (once an import under way is
+  // stored): draw the screen behind it again once is_open() is false.
   void draw();
 
   // Decoding or importing: keep frames coming (poll events rather than wait).
   bool busy() const;
-  // An import is writing to the project on a worker: nothing else may use the
-  // project's connection until this is false again.
-  bool holds_project() const { return import_job_.valid(); }
+  // A photo is being prepared on a worker (only one at a time); poll() stores it.
+  bool importing() const { return import_job_.valid(); }
 
   // For tests and the lead's wiring.
   const storage::VisitPhotos& visit() const { return visit_; }
@@ -77,7 +81,7 @@ class PhotoViewer {
     std::string error;
   };
   struct ImportResult {
-    std::optional<storage::PhotoRecord> record;
+    std::optional<storage::PreparedPhoto> prepared;
     std::string error, file_name;
   };
 
@@ -120,6 +124,7 @@ class PhotoViewer {
   char import_path_[512] = {};
   char import_caption_[200] = {};
   std::future<ImportResult> import_job_;
+  storage::PhotoOptions import_options_;  // of the import under way: the visit and caption as given
   std::future<std::vector<std::string>> folder_job_;
   std::vector<std::string> folder_files_;
   std::string folder_note_;

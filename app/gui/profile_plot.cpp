@@ -9,6 +9,7 @@
 
 #include "app/gui/ui_theme.hpp"
 #include "geometry/shapes/outline.hpp"
+#include "geometry/shapes/shape_family.hpp"
 
 namespace soffit::gui {
 
@@ -102,13 +103,8 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
     // distance with respect to the point), pointing back towards the curve.
     const double res = fit.residuals[i];
     const double len = res * kResidualExaggeration * scale;
-    const double h = 1e-6;
-    const ShapeFamily& family = *fit.family;
-    const double nx = (family.signed_distance(fit.params, {r.x + h, r.z}, nullptr) -
-                       family.signed_distance(fit.params, {r.x - h, r.z}, nullptr)) / (2 * h);
-    const double nz = (family.signed_distance(fit.params, {r.x, r.z + h}, nullptr) -
-                       family.signed_distance(fit.params, {r.x, r.z - h}, nullptr)) / (2 * h);
-    const ImVec2 tip(p.x - static_cast<float>(nx * len), p.y + static_cast<float>(nz * len));
+    const Point2 normal = distance_gradient_at_point(*fit.family, fit.params, {r.x, r.z});
+    const ImVec2 tip(p.x - static_cast<float>(normal.x * len), p.y + static_cast<float>(normal.z * len));
     draw->AddLine(p, tip, res < 0 ? c.residual_below : c.residual_above, 3.0f);
     draw->AddCircleFilled(p, dot, c.reading);
   }

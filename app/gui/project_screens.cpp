@@ -8,12 +8,14 @@
 #include <filesystem>
 #include <fstream>
 
+#include "app/gui/flow_layout.hpp"
 #include "app/gui/touch_scroll.hpp"
 #include "app/model/section_store.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 #include "exports/fit_report_json.hpp"
 #include "storage/storage_error.hpp"
+#include "storage/undo_journal.hpp"
 
 namespace soffit::gui {
 
@@ -51,8 +53,8 @@ float list_height(float reserve_below) {
 
 }  // namespace
 
-ProjectScreens::ProjectScreens(std::string assets_dir, std::string author)
-    : assets_dir_(std::move(assets_dir)), author_(std::move(author)) {
+ProjectScreens::ProjectScreens(std::string assets_dir, std::string author, std::unique_ptr<TextureFactory> textures)
+    : photos(std::move(textures)), assets_dir_(std::move(assets_dir)), author_(std::move(author)) {
   std::ifstream in(recent_file());
   for (std::string line; std::getline(in, line) && recent_.size() < kRecentCount;)
     if (!line.empty()) recent_.push_back(line);
@@ -69,6 +71,7 @@ void ProjectScreens::remember(const std::string& path) {
 }
 
 void ProjectScreens::open_path(const std::string& path, bool create) {
+  photos.close();
   defects.close();
   rings_fill.close();
   visit_views_open_ = false;
@@ -90,6 +93,7 @@ void ProjectScreens::open_path(const std::string& path, bool create) {
 
 void ProjectScreens::open_demo() {
   const std::string path = app::app_data_dir() + "/sallow-ford-demo.soffit";
+  photos.close();
   defects.close();
   rings_fill.close();
   visit_views_open_ = false;
@@ -131,6 +135,10 @@ void ProjectScreens::open_visit_views(const std::string& date) {
   defects.close();
   rings_fill.close();
   defects.open(*session_.project(), detail_->structure.fields.ref, date);
+  // From a defect (or the visit) to its photos; back on "Close photos".
+  defects.set_photos_request([this](const std::string& visit, const std::optional<std::string>& defect) {
+    open_photos(visit, defect);
+  });
   rings_fill.open(*session_.project(), detail_->structure.fields.ref, date);
   visit_views_open_ = true;
   visit_views_date_ = date;
@@ -172,6 +180,14 @@ void ProjectScreens::reload_sections(const storage::InspectionRecord& visit) {
   sections_structure_id_ = detail_ ? detail_->structure.id : std::string();
 }
 
+ProjectScreens::~ProjectScreens() { photos.close(); }
+
+void ProjectScreens::open_photos(const std::string& inspection_id, const std::optional<std::string>& defect_id) {
+  if (!session_.project()) return;
+  photos.open(*session_.project(), inspection_id, defect_id);
+  screen = Screen::photos;
+}
+
 void ProjectScreens::draw_tabs() {
   struct Tab {
     const char* label;
@@ -184,10 +200,11 @@ void ProjectScreens::draw_tabs() {
                       {"Sections", Screen::section, !sections.empty()},
                       {"Defects", Screen::defects, visit_views_open_},
                       {"Rings & fill", Screen::rings_fill, visit_views_open_},
+                      {"Photos", Screen::photos, photos.is_open()},
                       {"Change", Screen::compare, changes_.has_value() || comparing()}};
   bool first = true;  // the tabs start their own row under the top bar
   for (const Tab& t : tabs) {
-    if (!first) ImGui::SameLine();
+    if (!first) same_line_if_fits(t.label);
     first = false;
     ImGui::BeginDisabled(!t.enabled);
     const bool current = screen == t.screen;
@@ -207,6 +224,13 @@ void ProjectScreens::draw_current() {
     case Screen::section: sections.draw(); break;
     case Screen::defects: defects.draw(); break;
     case Screen::rings_fill: rings_fill.draw(); break;
+    case Screen::photos:
+      photos.draw();
+      if (!photos.is_open()) {  // "Close photos": back where they were asked for, with counts read again
+        if (visit_views_open_) defects.reload();
+        screen = visit_views_open_ ? Screen::defects : Screen::structure;
+      }
+      break;
     case Screen::compare: draw_compare(); break;
   }
 }
@@ -312,6 +336,8 @@ void ProjectScreens::reload_after_change(bool sections_too) {
   if (detail_ && visit_views_open_) {
     open_visit_views(visit_views_date_);
   } else if (!detail_) {
+    photos.close();
+    if (screen == Screen::photos) screen = Screen::register_list;
     defects.close();
     rings_fill.close();
     visit_views_open_ = false;
@@ -469,6 +495,7 @@ void ProjectScreens::draw_structure() {
   if (f.span_count && static_cast<size_t>(*f.span_count) != detail_->spans.size())
     spans += "  (the register says " + std::to_string(*f.span_count) + ")";
   ImGui::TextUnformatted(spans.c_str());
+  draw_latest_geometry();
   ImGui::Separator();
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Visits");
@@ -487,23 +514,34 @@ void ProjectScreens::draw_structure() {
     ImGui::AlignTextToFramePadding();
     ImGui::Text("%s  %s  %s  revision %d  (%s)", v.date.c_str(), v.kind.c_str(), v.inspector.c_str(), v.revision,
                 v.status.c_str());
-    ImGui::SameLine();
+    // The visit's actions on their own line, wrapping at large text rather than running off the screen.
     ImGui::BeginDisabled(v.sections.empty());
     const bool open = ImGui::Button("Sections");
     probe("visit:" + v.date);
     ImGui::EndDisabled();
-    ImGui::SameLine();
+    same_line_if_fits("Defects");
     if (ImGui::Button("Defects")) {
       open_visit_views(v.date);
       screen = Screen::defects;
     }
-    ImGui::SameLine();
+    same_line_if_fits("Rings & fill");
     if (ImGui::Button("Rings & fill")) {
       open_visit_views(v.date);
       screen = Screen::rings_fill;
     }
+    same_line_if_fits("Photos");
+    const bool photos_pressed = ImGui::Button("Photos");
+    probe("photos:" + v.date);
+    if (photos_pressed) open_photos(v.id);
+    if (v.status != "issued") {
+      // A section surveyed on site starts here, empty, and is typed into in the section view.
+      same_line_if_fits("New section...");
+      const bool new_pressed = ImGui::Button("New section...");
+      probe("new-section:" + v.date);
+      if (new_pressed) new_section_.request(detail_->structure.fields.ref, v.date, detail_->spans);
+    }
     draw_sign_off(v);
-    ImGui::SameLine();
+    same_line_if_fits("Export...");
     const bool export_pressed = ImGui::Button("Export...");
     probe("export:" + v.date);
     if (export_pressed && session_.project())
@@ -520,6 +558,7 @@ void ProjectScreens::draw_structure() {
   if (to_open) open_sections(*to_open);
   export_dialog.draw();
   draw_sign_off_dialogs();
+  if (const auto made = new_section_.draw(session_.project())) show_new_section(*made);
   if (refresh_structure_) {
     refresh_structure_ = false;
     show_structure(detail_->structure.fields.ref);
@@ -530,6 +569,88 @@ void ProjectScreens::draw_structure() {
     ImGui::PopStyleColor();
   }
   draw_structure_form();
+}
+
+void ProjectScreens::open_new_section_form() {
+  if (!detail_) return;
+  screen = Screen::structure;
+  for (auto v = detail_->inspections.rbegin(); v != detail_->inspections.rend(); ++v)
+    if (v->status != "issued") {
+      new_section_.request(detail_->structure.fields.ref, v->date, detail_->spans);
+      return;
+    }
+}
+
+void ProjectScreens::show_new_section(const std::string& section_id) {
+  detail_ = session_.structure(detail_->structure.fields.ref);
+  if (!detail_) return;
+  for (const storage::InspectionRecord& v : detail_->inspections)
+    for (const storage::SectionRecord& s : v.sections)
+      if (s.id == section_id) {
+        open_sections(v);
+        for (size_t i = 0; i < section_ids_.size(); ++i)
+          if (section_ids_[i] == section_id) sections.select(i);
+        saved_note_ = saved_to(session_.path(), "Added section " + s.span_label + " " + s.label);
+        return;
+      }
+}
+
+void ProjectScreens::draw_latest_geometry() {
+  if (!detail_ || detail_->inspections.empty() || !session_.project()) return;
+  const storage::InspectionRecord& latest = detail_->inspections.back();
+  // Fitted again whenever the project changes (an edit, an undo) or another structure is shown.
+  const std::string key = latest.id + "|" + storage::journal_state(session_.project()->db());
+  if (geometry_job_.valid() && geometry_job_.wait_for(std::chrono::seconds(0)) == std::future_status::ready)
+    geometry_ = geometry_job_.get();
+  if (key != geometry_key_ && !geometry_job_.valid()) {
+    std::vector<app::LabelledSheet> sheets;
+    try {
+      // Sheets are read here, on the UI thread; the fits run on a worker with the copies.
+      for (const storage::SectionRecord& s : latest.sections)
+        sheets.push_back({s.span_label, s.label, session_.section_sheet(s.id)});
+      geometry_job_ = std::async(std::launch::async, [sheets = std::move(sheets)] {
+        return app::summarise_geometry(sheets);
+      });
+      geometry_key_ = key;
+      geometry_visit_ = latest.date;
+    } catch (const std::exception& e) {
+      message_ = e.what();
+      geometry_key_ = key;  // not again until something changes
+    }
+  }
+  if (latest.sections.empty()) return;
+  ImGui::Text("Latest geometry (visit of %s)%s", geometry_visit_.c_str(), geometry_job_.valid() ? "  fitting..." : "");
+  if (!geometry_) return;
+  if (ImGui::BeginTable("latest geometry", 6, ImGuiTableFlags_Borders | ImGuiTableFlags_SizingFixedFit)) {
+    for (const char* h : {"Span", "Section", "Shape", "Span m (95%)", "Rise mm (95%)", "RMS mm"})
+      ImGui::TableSetupColumn(h);
+    ImGui::TableHeadersRow();
+    for (const app::SectionGeometry& g : *geometry_) {
+      ImGui::TableNextRow();
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(g.span.c_str());
+      ImGui::TableNextColumn();
+      ImGui::TextUnformatted(g.section.c_str());
+      ImGui::TableNextColumn();
+      if (!g.span_m || !g.rise_m) {
+        ImGui::TextUnformatted("no fit");
+        ImGui::TableNextColumn();
+        ImGui::TextWrapped("%s", g.error.substr(0, 80).c_str());
+        continue;
+      }
+      ImGui::TextUnformatted(g.shape.c_str());
+      ImGui::TableNextColumn();
+      ImGui::Text("%.4f (%.4f to %.4f)", g.span_m->value, g.span_m->lo, g.span_m->hi);
+      ImGui::TableNextColumn();
+      ImGui::Text("%.1f (%.1f to %.1f)", g.rise_m->value * 1000, g.rise_m->lo * 1000, g.rise_m->hi * 1000);
+      ImGui::TableNextColumn();
+      ImGui::Text("%.1f", g.rms_mm);
+    }
+    ImGui::EndTable();
+  }
+  ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().caution));
+  ImGui::TextWrapped("Survey data, not an assessment: a qualified engineer decides what it means.");
+  ImGui::PopStyleColor();
 }
 
 void ProjectScreens::start_comparison() {
@@ -591,7 +712,7 @@ void ProjectScreens::draw_compare() {
 }
 
 void ProjectScreens::draw_sign_off(const storage::InspectionRecord& v) {
-  ImGui::SameLine();
+  same_line_if_fits(v.status == "draft" ? "Mark checked" : v.status == "checked" ? "Issue..." : "New revision...");
   if (v.status == "draft") {
     const bool pressed = ImGui::Button("Mark checked");
     probe("checked:" + v.date);

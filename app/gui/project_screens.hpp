@@ -6,6 +6,8 @@
 #include <vector>
 
 #include "app/gui/defects_view.hpp"
+#include "app/gui/new_section_dialog.hpp"
+#include "app/gui/photo_viewer.hpp"
 #include "app/gui/export_dialog.hpp"
 #include "app/gui/rings_fill_view.hpp"
 #include "app/gui/section_workspace.hpp"
@@ -13,16 +15,20 @@
 #include "app/model/project_session.hpp"
 #include "app/model/register_filter.hpp"
 #include "app/model/visit_comparison.hpp"
+#include "app/model/visit_geometry.hpp"
 
 #include <future>
 
 namespace soffit::gui {
 
-enum class Screen { start, register_list, structure, section, defects, rings_fill, compare };
+enum class Screen { start, register_list, structure, section, defects, rings_fill, photos, compare };
 
 class ProjectScreens {
  public:
-  ProjectScreens(std::string assets_dir, std::string author);
+  // `textures` uploads photos for the photo viewer (OpenGL in the app; none
+  // in headless tests, where photos are drawn as placeholders of their shape).
+  ProjectScreens(std::string assets_dir, std::string author, std::unique_ptr<TextureFactory> textures = nullptr);
+  ~ProjectScreens();  // the photo viewer frees its textures: close() it while the GL context exists
 
   // Opens (writing it first if needed) the demo project and shows the register.
   void open_demo();
@@ -35,6 +41,11 @@ class ProjectScreens {
   Screen screen = Screen::start;
   SectionWorkspace sections;
   DefectsView defects;
+  PhotoViewer photos;
+  // The structure screen with "New section" open on the latest visit that is not issued (a screenshot).
+  void open_new_section_form();
+  // Shows the photos of a visit, with a defect first when one is given.
+  void open_photos(const std::string& inspection_id, const std::optional<std::string>& defect_id = std::nullopt);
   ExportDialog export_dialog;
   RingsFillView rings_fill;
 
@@ -44,6 +55,9 @@ class ProjectScreens {
   // Fits the sections the last two visits share, on a worker, and shows the change.
   void start_comparison();
   bool comparing() const { return compare_job_.valid(); }
+  // Something runs on a worker (a fit, a comparison, photos): keep frames coming.
+  bool busy() const { return sections.busy() || photos.busy() || comparing() || geometry_job_.valid(); }
+  const std::optional<std::vector<app::SectionGeometry>>& latest_geometry() const { return geometry_; }
   const std::optional<std::vector<app::SectionChange>>& changes() const { return changes_; }
   // The register's "Add structure" form, opened as if tapped (for the screenshot view).
   void open_add_structure() { structure_form_.open_new(); }
@@ -62,6 +76,8 @@ class ProjectScreens {
   void draw_sign_off(const storage::InspectionRecord& visit);
   void draw_sign_off_dialogs();
   void draw_compare();
+  void draw_latest_geometry();  // the structure screen's summary of its latest visit
+  void show_new_section(const std::string& section_id);  // the section view on a section just made
   void remember(const std::string& path);
   // Add / edit details / undo / redo and where the last change went, on the
   // register and structure screens.
@@ -87,6 +103,10 @@ class ProjectScreens {
   std::string signing_visit_;        // inspection id awaiting confirmation
   bool open_issue_ = false, open_revise_ = false;
   bool refresh_structure_ = false;  // re-read the structure after a sign-off step
+  NewSectionDialog new_section_;
+  std::future<std::vector<app::SectionGeometry>> geometry_job_;
+  std::optional<std::vector<app::SectionGeometry>> geometry_;
+  std::string geometry_key_, geometry_visit_;  // what the summary (or its job) is of
   std::string compare_title_;
   std::future<std::vector<app::SectionChange>> compare_job_;
   std::optional<std::vector<app::SectionChange>> changes_;

@@ -256,7 +256,17 @@ void SectionWorkspace::draw_results() {
     return;
   }
   if (!analysis_->ok()) {
-    ImGui::TextWrapped("No fit: %s", analysis_->error.c_str());
+    int used = 0;
+    for (const Reading& r : e.sheet->readings) used += (!r.excluded && !r.check) ? 1 : 0;
+    if (used < 4) {
+      // A section being keyed in: say what is needed rather than every family's refusal.
+      ImGui::TextWrapped("No fit yet: %d reading%s to fit; at least 4 are needed (about 9 per section is usual: "
+                         "springings, quarter and eighth points, crown).",
+                         used, used == 1 ? "" : "s");
+      probe("no-fit:more-readings");
+    } else {
+      ImGui::TextWrapped("No fit: %s", analysis_->error.c_str());
+    }
     draw_readings_table();
     return;
   }

@@ -95,7 +95,97 @@ bool names_elevation(const ElevationFrame& e, const storage::DefectFields& d) {
   return false;
 }
 
+
+// How far off a point may be before it gets a note: a finger-drawn mark or a
+// taped position is good to a few centimetres (common practice), the
+// stations to about 3 mm (FIELD.md §10.2).
+constexpr double kPlacementSlackM = 0.05;
+
+// "1.0", "3.2", "1.59": two decimals, a trailing zero dropped, as a person writes them.
+std::string short_number(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.2f", v + 0.0);
+  std::string text = buf;
+  if (text == "-0.00") text = "0.00";
+  if (text.back() == '0') text.pop_back();
+  return text;
+}
+
+// z of the polyline `path` (sorted by x) at `x`, straight between stations;
+// nullopt outside its stations. Between stations the chord lies under the
+// curve of an arch, so this errs towards leaving a point unflagged.
+std::optional<double> height_at(const PlanePath& path, double x) {
+  if (path.size() < 2 || x < path.front().first || x > path.back().first) return std::nullopt;
+  for (size_t i = 1; i < path.size(); ++i) {
+    const auto& [x0, z0] = path[i - 1];
+    const auto& [x1, z1] = path[i];
+    if (x > x1) continue;
+    if (x1 - x0 <= 0) return std::max(z0, z1);
+    return z0 + (z1 - z0) * (x - x0) / (x1 - x0);
+  }
+  return path.back().second;
+}
+
+// "D07, point 1 of 4: " or "D03: ", so a line or an area says which point is off.
+std::string note_prefix(const DefectOnRecord& d, size_t index) {
+  const auto& points = d.defect.fields.points;
+  if (points.size() <= 1) return d.defect.fields.ref + ": ";
+  return d.defect.fields.ref + ", point " + std::to_string(index + 1) + " of " + std::to_string(points.size()) + ": ";
+}
+
+// Why a spandrel point is off the wall, or empty when it is on it.
+std::string spandrel_problem(const ElevationFrame& e, double x, double z) {
+  const std::string where = " at x " + short_number(x);
+  if (e.surveyed_span_m && (x < -kPlacementSlackM || x > *e.surveyed_span_m + kPlacementSlackM))
+    return "x " + short_number(x) + " is outside the span (0 to " + short_number(*e.surveyed_span_m) + " m surveyed)";
+  if (z < -kPlacementSlackM)
+    return short_number(-z) + " m below the springing" + where + " is under the springing line, off the wall";
+  if (const auto intrados = height_at(e.intrados, x); intrados && z < *intrados - kPlacementSlackM)
+    return short_number(z) + " m above the springing" + where + " is below the intrados (" + short_number(*intrados) +
+           " m), in the arch opening";
+  if (e.recorded_height_m && z > *e.recorded_height_m + kPlacementSlackM)
+    return short_number(z) + " m above the springing" + where + " is above the recorded wall height (" +
+           short_number(*e.recorded_height_m) + " m)";
+  return {};
+}
+
+// Why a barrel point is off the soffit, or empty when it is on it.
+std::string barrel_problem(const BarrelFrame& b, double s, double y) {
+  // A taped arc runs up to 1 % longer than the chords between stations (chord = 2R sin(θ/2), R ≈ 4 m, stations ≤ 0.8 m apart).
+  if (b.arc_known && (s < -kPlacementSlackM || s > b.surveyed_arc_m * 1.01 + kPlacementSlackM))
+    return "s " + short_number(s) + " (y " + short_number(y) + ") is outside the arc (0 to " +
+           short_number(b.surveyed_arc_m) + " m along the intrados)";
+  if (b.width_known && (y < -kPlacementSlackM || y > b.recorded_width_m + kPlacementSlackM))
+    return "y " + short_number(y) + " (s " + short_number(s) + ") is outside the barrel width (0 to " +
+           short_number(b.recorded_width_m) + " m)";
+  return {};
+}
+
+template <typename Problem>
+std::vector<PlacementNote> notes_for(const std::vector<const DefectOnRecord*>& defects, const Problem& problem) {
+  std::vector<PlacementNote> out;
+  for (const DefectOnRecord* d : defects) {
+    const auto& points = d->defect.fields.points;
+    for (size_t i = 0; i < points.size(); ++i) {
+      const std::string why = problem(points[i].first, points[i].second);
+      if (why.empty()) continue;
+      out.push_back({d->id, d->defect.fields.ref, note_prefix(*d, i) + why + ": check its position or frame"});
+      break;
+    }
+  }
+  return out;
+}
+
 }  // namespace
+
+std::vector<PlacementNote> placement_notes(const ElevationFrame& frame, const std::vector<const DefectOnRecord*>& defects) {
+  if (frame.kind != ElevationKind::us_spandrel && frame.kind != ElevationKind::ds_spandrel) return {};
+  return notes_for(defects, [&](double x, double z) { return spandrel_problem(frame, x, z); });
+}
+
+std::vector<PlacementNote> placement_notes(const BarrelFrame& barrel, const std::vector<const DefectOnRecord*>& defects) {
+  return notes_for(defects, [&](double s, double y) { return barrel_problem(barrel, s, y); });
+}
 
 double polyline_length(const Readings& readings) {
   std::vector<std::pair<double, double>> p;
@@ -145,7 +235,7 @@ std::vector<BarrelFrame> InspectionData::barrels() const {
     b.span_label = span.record.label;
     b.origin = span.record.label + " W springing; US face";
     if (span.details.barrel_width_m && *span.details.barrel_width_m > 0) {
-      b.width_m = *span.details.barrel_width_m;
+      b.width_m = b.recorded_width_m = *span.details.barrel_width_m;
       b.width_known = true;
     }
     for (const storage::ExportSection& s : data_.sections)
@@ -156,6 +246,7 @@ std::vector<BarrelFrame> InspectionData::barrels() const {
           b.arc_known = true;
         }
       }
+    b.surveyed_arc_m = b.arc_length_m;
     double max_s = 0, max_y = 0;
     for (const DefectOnRecord* d : soffit_defects(b.span_id)) {
       b.origin = d->defect.fields.frame_origin;  // keep to the frame the visit already uses
@@ -202,6 +293,7 @@ std::vector<ElevationFrame> InspectionData::all_elevations() const {
       const SpanOutline o = span_outline(data_, span.record.index, side);
       if (o.found) {
         e.x_max = o.span_m;
+        e.surveyed_span_m = o.span_m;
         e.width_basis = "span " + metres(o.span_m) + " (end stations of section " + o.section + ")";
         e.intrados = o.intrados;
       } else {
@@ -214,6 +306,7 @@ std::vector<ElevationFrame> InspectionData::all_elevations() const {
         if (!w.internal && w.side == side && w.height_m && *w.height_m > 0) height = w.height_m;
       if (height) {
         e.z_max = *height;
+        e.recorded_height_m = height;
         e.height_basis = "wall height " + metres(*height) + " (span details)";
       } else {
         // A stand-in only: the wall reaches at least the crown, and there is

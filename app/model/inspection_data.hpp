@@ -43,6 +43,9 @@ struct BarrelFrame {
   std::string start_springing = "W springing", end_springing = "E springing";
   bool y_from_upstream = true;  // y = 0 is the upstream face
   bool width_known = false, arc_known = false;
+  // The measured size before it was stretched to take in the defects, for
+  // placement_notes: meaningful only where arc_known / width_known.
+  double surveyed_arc_m = 0, recorded_width_m = 0;
   DefectPlace place() const { return {storage::DefectFrame::soffit, span_id, span_label + " barrel", origin}; }
 };
 
@@ -64,6 +67,10 @@ struct ElevationFrame {
   bool seen_from_downstream = false;
   std::string x_zero_label, z_zero_label;  // what x = 0 and z = 0 are
   PlanePath intrados;          // spandrels: the surveyed intrados (x, z above the springing)
+  // Spandrels: the surface as measured, before it was stretched to take in
+  // the defects (for placement_notes); nullopt when not surveyed or recorded.
+  std::optional<double> surveyed_span_m;    // x from 0 to this: end stations of a section
+  std::optional<double> recorded_height_m;  // z from 0 to this: wall height in the span details
   std::vector<std::string> defect_ids;  // elevation defects shown on it
   DefectPlace place() const { return {storage::DefectFrame::elevation, record_span_id, element, origin}; }
 };
@@ -116,6 +123,22 @@ class InspectionData {
   storage::InspectionExportData data_;
   std::vector<DefectOnRecord> defects_;
 };
+
+// A defect drawn where its surface is not: almost certainly in the wrong
+// frame or mistyped. Only a note for the inspector: the defect stays as recorded.
+struct PlacementNote {
+  std::string defect_id, ref;
+  std::string text;  // "D03: 1.0 m above the springing at x 3.2 is below the intrados (1.59 m): check …"
+};
+
+// Spandrel elevations: a point in the arch opening (below the surveyed
+// intrados), beyond the surveyed span, below the springing line, or above
+// the wall height where it is recorded. One note per defect, for its first
+// point that is off. Other elevations have no outline to check against.
+std::vector<PlacementNote> placement_notes(const ElevationFrame& frame, const std::vector<const DefectOnRecord*>& defects);
+// The unrolled barrel: a point with s outside 0 to the surveyed arc length,
+// or y outside 0 to the recorded barrel width.
+std::vector<PlacementNote> placement_notes(const BarrelFrame& barrel, const std::vector<const DefectOnRecord*>& defects);
 
 // The next free "Dnn" after the highest numbered reference among `defects`.
 std::string next_defect_ref(const std::vector<DefectOnRecord>& defects);

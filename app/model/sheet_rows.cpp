@@ -34,7 +34,9 @@ SurveySheet reduce_states(const SurveySheet& sheet, const std::vector<RowState>&
     while (!raw.cells.empty() && raw.cells.back().empty()) raw.cells.pop_back();
     edited.raw_rows.push_back(std::move(raw));
   }
-  SurveySheet out = parse_sheet(storage::write_sheet_text(edited, true), sheet.source, {});
+  SheetOptions options;
+  options.allow_few_readings = true;  // a section is keyed in one reading at a time
+  SurveySheet out = parse_sheet(storage::write_sheet_text(edited, true), sheet.source, options);
   if (out.readings.size() != states.size())
     throw InputError(sheet.source, 0, "", "the edited sheet gave " + std::to_string(out.readings.size()) +
                                               " readings for " + std::to_string(states.size()) + " rows");

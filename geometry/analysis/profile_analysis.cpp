@@ -64,7 +64,7 @@ ProfileAnalysis analyse_profile(const Readings& readings, const ProfileRequest& 
                            " arch's springing line passes through its centres");
   }
   if (springing_gap_ratio(fit) > kMaxSpringingGapRatio) {
-    out.warnings.push_back("the readings end " + mm(fit.end_readings_z - fit.springing_z) +
+    out.warnings.push_back("the readings end " + mm(fit.end_readings_z - fit.outline.z_springing) +
                            " mm above this shape's springing line: its span and rise are extrapolated "
                            "below the surveyed profile; another family may describe it better");
   }
@@ -73,7 +73,7 @@ ProfileAnalysis analyse_profile(const Readings& readings, const ProfileRequest& 
         "the springing level is taken as the mean level of the two end readings; give "
         "--springing-z if the profile does not start and end at the springings");
   }
-  if (fit.family->name() == "segmental" && fit.params[1] > fit.springing_z) {
+  if (fit.family->name() == "segmental" && fit.params[1] > fit.outline.z_springing) {
     out.warnings.push_back("the circle's centre lies above the springing level: the arch is more than a "
                            "semicircle (horseshoe or stilted); check the springing level");
   }

@@ -73,13 +73,14 @@ double median(std::vector<double> v) {
 
 double springing_gap_ratio(const ShapeFit& fit) {
   if (!fit.family->springing_from_shape() || !(fit.data_rise > 0.0)) return 0.0;
-  return (fit.end_readings_z - fit.springing_z) / fit.data_rise;
+  return (fit.end_readings_z - fit.outline.z_springing) / fit.data_rise;
 }
 
-double end_readings_level(const std::vector<Point2>& points) {
-  const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
-                                            [](Point2 a, Point2 b) { return a.x < b.x; });
-  return (lo->z + hi->z) / 2.0;
+double end_readings_level_variance(const ShapeFit& fit, const Readings& readings) {
+  const auto ends = find_end_readings(readings, fit.used);
+  if (!ends) return 0.0;
+  const double s1 = fit.sigmas[ends->first], s2 = fit.sigmas[ends->last];
+  return (s1 * s1 + s2 * s2) / 4;
 }
 
 std::optional<SolverVector> refit_points(const ShapeFamily& family, const std::vector<Point2>& points,
@@ -177,15 +178,12 @@ FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const 
   fit.covariance = solved.jtj.ldlt().solve(SolverMatrix::Identity(p, p));
   fit.end_readings_z = end_readings_level(points);
   for (const Point2& q : points) fit.data_rise = std::max(fit.data_rise, q.z - fit.end_readings_z);
-  if (family.springing_from_shape()) {
-    fit.springing_z = 0.0;  // the outline takes it from the parameters
-  } else if (options.springing_z) {
-    fit.springing_z = *options.springing_z;
-  } else {
-    fit.springing_z = end_readings_level(points);
-    fit.springing_from_ends = true;
+  double springing_level = 0.0;  // ignored by a shape that fixes its own springing line
+  if (!family.springing_from_shape()) {
+    springing_level = options.springing_z.value_or(fit.end_readings_z);
+    fit.springing_from_ends = !options.springing_z;
   }
-  const auto outline = family.outline(fit.params, fit.springing_z);
+  const auto outline = family.outline(fit.params, springing_level);
   if (!outline) {
     outcome.error = "no " + std::string(family.name()) +
                     " arch fits between the springings at that level (it lies above the crown, or "
@@ -193,7 +191,6 @@ FitOutcome fit_shape(const ShapeFamily& family, const Readings& readings, const 
     return outcome;
   }
   fit.outline = *outline;
-  fit.springing_z = outline->z_springing;
   if (const int off = readings_off_the_arch(family, fit.params, *outline, points, inverse_variance); off * 4 > n) {
     // The full curve fits, but the readings lie on its underside: the arch
     // reported would not pass through them.

@@ -12,6 +12,7 @@
 #include <string>
 #include <vector>
 
+#include "geometry/core/end_readings.hpp"
 #include "geometry/core/reading.hpp"
 #include "geometry/shapes/shape_family.hpp"
 
@@ -29,11 +30,10 @@ struct ShapeFit {
   const ShapeFamily* family = nullptr;
   SolverVector params;
   SolverMatrix covariance;      // (JᵀWJ)⁻¹ at the solution, a-priori σ
-  double springing_z = 0.0;     // level used for the outline
-  bool springing_from_ends = false;
+  bool springing_from_ends = false;  // outline.z_springing is end_readings_z
   double end_readings_z = 0.0;  // mean level of the two end readings used
   double data_rise = 0.0;       // highest reading used above end_readings_z
-  Outline outline;
+  Outline outline;              // its z_springing is the springing level used
   int iterations = 0;
 
   // Per reading, in the order of the input (excluded and check readings too).
@@ -76,8 +76,8 @@ double springing_gap_ratio(const ShapeFit& fit);
 // gap 1.5 times the rise) is not an arch.
 constexpr double kMaxSpringingGapRatio = 0.35;
 
-// The springing level of families that do not fix it: mean z of the readings
-// with the smallest and largest x among `points`.
-double end_readings_level(const std::vector<Point2>& points);
+// Variance of the springing level taken from the end readings (their mean z):
+// (σ₁² + σ₂²)/4 with the σ the fit used for them. `readings` are the fitted ones.
+double end_readings_level_variance(const ShapeFit& fit, const Readings& readings);
 
 }  // namespace soffit

@@ -1,8 +1,10 @@
 #include "geometry/analysis/shape_selection.hpp"
 
 #include <cmath>
+#include <limits>
 #include <sstream>
 
+#include "geometry/core/numeric_derivative.hpp"
 #include "geometry/shapes/families.hpp"
 
 namespace soffit {
@@ -63,16 +65,14 @@ bool reduces_to_semicircle(const ShapeFit& fit, double level, double level_varia
     why = "the arc radius exceeds the half-span by " + fmt(difference * 1000) + " mm (sd " +
           fmt(sd * 1000) + " mm)";
   } else if (name == "three-centred") {
+    // R − r₁: the crown radius R is not a parameter but comes from the outline.
+    const auto radii_difference = [&fit](const SolverVector& params) {
+      const auto o = fit.family->outline(params, 0.0);
+      return o ? o->pieces[1].a - params[4] : std::numeric_limits<double>::quiet_NaN();
+    };
     difference = fit.outline.pieces[1].a - fit.params[4];
-    // Numerical gradient of R − r₁ with respect to the parameters.
-    for (Eigen::Index j = 0; j < p; ++j) {
-      const double h = 1e-6 * std::max(1.0, std::abs(fit.params[j]));
-      SolverVector up = fit.params, down = fit.params;
-      up[j] += h;
-      down[j] -= h;
-      const auto ou = fit.family->outline(up, 0.0), od = fit.family->outline(down, 0.0);
-      if (ou && od) g[j] = ((ou->pieces[1].a - up[4]) - (od->pieces[1].a - down[4])) / (2 * h);
-    }
+    numeric_gradient(radii_difference, fit.params, difference, g.data());
+    g = g.unaryExpr([](double v) { return std::isfinite(v) ? v : 0.0; });  // no outline either side: no share
     sd = linear_sd(fit, g);
     why = "the crown and haunch radii differ by " + fmt(difference * 1000) + " mm (sd " +
           fmt(sd * 1000) + " mm)";
@@ -94,7 +94,7 @@ ShapeSelection select_shape(const Readings& readings, const FitOptions& options)
     c.error = std::move(outcome.error);
     if (c.fit && springing_gap_ratio(*c.fit) > kMaxSpringingGapRatio) {
       // Fits the readings, but only by extrapolating far below them: not supported.
-      c.error = "its springing line lies " + fmt((c.fit->end_readings_z - c.fit->springing_z) * 1000) +
+      c.error = "its springing line lies " + fmt((c.fit->end_readings_z - c.fit->outline.z_springing) * 1000) +
                 " mm below the end readings";
       c.supported = false;
     }
@@ -129,24 +129,9 @@ ShapeSelection select_shape(const Readings& readings, const FitOptions& options)
     if (seg >= 0 && s.candidates[static_cast<size_t>(seg)].fit) s.chosen = seg;
   }
 
-  // Readings at the two ends, for the σ of a springing level taken from them.
-  std::vector<double> end_sigmas = {options.fallback_sigma_m, options.fallback_sigma_m};
-  {
-    const Reading* lo = nullptr;
-    const Reading* hi = nullptr;
-    for (const Reading& r : readings) {
-      if (r.excluded || r.check) continue;
-      if (!lo || r.x < lo->x) lo = &r;
-      if (!hi || r.x > hi->x) hi = &r;
-    }
-    if (lo && lo->sigma > 0) end_sigmas[0] = lo->sigma;
-    if (hi && hi->sigma > 0) end_sigmas[1] = hi->sigma;
-  }
-
   const ShapeFit& chosen_fit = *s.candidates[static_cast<size_t>(s.chosen)].fit;
   const double level = options.springing_z.value_or(chosen_fit.end_readings_z);
-  const double level_variance =
-      options.springing_z ? 0.0 : (end_sigmas[0] * end_sigmas[0] + end_sigmas[1] * end_sigmas[1]) / 4;
+  const double level_variance = options.springing_z ? 0.0 : end_readings_level_variance(chosen_fit, readings);
   std::string why;
   const int semi = index_of(s, semicircular_family());
   if (semi >= 0 && s.candidates[static_cast<size_t>(semi)].fit &&

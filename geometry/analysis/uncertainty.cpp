@@ -3,11 +3,14 @@
 #include <Eigen/Core>
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <sstream>
 
 #include "geometry/analysis/derived.hpp"
 #include "geometry/analysis/distributions.hpp"
 #include "geometry/analysis/random_normal.hpp"
+#include "geometry/core/end_readings.hpp"
+#include "geometry/core/numeric_derivative.hpp"
 
 namespace soffit {
 
@@ -28,6 +31,13 @@ std::optional<Eigen::VectorXd> flatten(const ShapeFamily& family, const SolverVe
   for (double g : d->geometry) v[k++] = g;
   for (const auto& [name, value] : d->parameters) v[k++] = value;
   return v;
+}
+
+// The same, all NaN (outside the domain, for numeric_derivative) when empty.
+Eigen::VectorXd flatten_or_nan(const ShapeFamily& family, const SolverVector& params, double springing_z,
+                               Eigen::Index size) {
+  auto v = flatten(family, params, springing_z);
+  return v ? std::move(*v) : Eigen::VectorXd::Constant(size, std::numeric_limits<double>::quiet_NaN());
 }
 
 // q-quantile with linear interpolation between order statistics (the sample
@@ -83,49 +93,35 @@ Uncertainty propagate_uncertainty(const ShapeFit& fit, const Readings& readings,
   const Eigen::Index p = fit.params.size();
 
   // --- Linearised propagation -------------------------------------------
-  Eigen::MatrixXd gradient = Eigen::MatrixXd::Zero(q, p);
-  for (Eigen::Index j = 0; j < p; ++j) {
-    const double h = 1e-6 * std::max(1.0, std::abs(fit.params[j]));
-    SolverVector up = fit.params, down = fit.params;
-    up[j] += h;
-    down[j] -= h;
-    const auto vu = flatten(family, up, fit.springing_z), vd = flatten(family, down, fit.springing_z);
-    if (vu && vd) gradient.col(j) = (*vu - *vd) / (2 * h);
-  }
+  const double level = fit.outline.z_springing;
+  // A quantity that cannot be evaluated on either side of the estimate adds
+  // nothing; on one side only (a fit on the edge of its family, such as a
+  // pointed arch with ρ = h), numeric_derivative takes the one-sided difference.
+  const auto finite_or_zero = [](const Eigen::MatrixXd& m) -> Eigen::MatrixXd {
+    return m.unaryExpr([](double v) { return std::isfinite(v) ? v : 0.0; });
+  };
+  const Eigen::MatrixXd gradient = finite_or_zero(numeric_jacobian(
+      [&](const SolverVector& params) { return flatten_or_nan(family, params, level, q); }, fit.params, nominal));
   Eigen::MatrixXd covariance = scale2 * gradient * Eigen::MatrixXd(fit.covariance) * gradient.transpose();
   if (fit.springing_from_ends) {
-    // The level is the mean of the two end readings: variance (σ₁² + σ₂²)/4.
-    size_t first = readings.size(), last = readings.size();
-    for (size_t i = 0; i < readings.size(); ++i) {
-      if (!fit.used[i]) continue;
-      if (first == readings.size() || readings[i].x < readings[first].x) first = i;
-      if (last == readings.size() || readings[i].x > readings[last].x) last = i;
-    }
+    const EndReadings ends = *find_end_readings(readings, fit.used);
     // The end readings also pull on the fitted parameters, so the level and the
     // parameters are correlated: δθ = −C Σ Jᵢᵀ wᵢ δdᵢ with δdᵢ = nᵢ·δpᵢ, hence
     // Cov(θ, ℓ) = −½ C Σ_{ends} Jᵢᵀ wᵢ σᵢ² n_zᵢ.
-    const double var_level =
-        scale2 * (fit.sigmas[first] * fit.sigmas[first] + fit.sigmas[last] * fit.sigmas[last]) / 4;
+    const double var_level = scale2 * end_readings_level_variance(fit, readings);
     Eigen::VectorXd cross = Eigen::VectorXd::Zero(p);
-    for (size_t i : {first, last}) {
+    for (size_t i : {ends.first, ends.last}) {
       const Point2 at{readings[i].x, readings[i].z};
       double jac[kMaxSolverParameters];
       distance_with_gradient(family, fit.params, at, jac);
-      const double hz = 1e-7;
-      const double nz = (family.signed_distance(fit.params, {at.x, at.z + hz}, nullptr) -
-                         family.signed_distance(fit.params, {at.x, at.z - hz}, nullptr)) /
-                        (2 * hz);
+      const double nz = distance_gradient_at_point(family, fit.params, at).z;
       for (Eigen::Index j = 0; j < p; ++j) cross[j] += jac[j] * fit.weights[i] * nz;
     }
     cross = -0.5 * scale2 * (Eigen::MatrixXd(fit.covariance) * cross);
-    const double h = 1e-6;
-    const auto vu = flatten(family, fit.params, fit.springing_z + h);
-    const auto vd = flatten(family, fit.params, fit.springing_z - h);
-    if (vu && vd) {
-      const Eigen::VectorXd g = (*vu - *vd) / (2 * h);
-      const Eigen::VectorXd gc = gradient * cross;
-      covariance += var_level * g * g.transpose() + gc * g.transpose() + g * gc.transpose();
-    }
+    const Eigen::VectorXd g = finite_or_zero(numeric_derivative(
+        [&](double z) { return flatten_or_nan(family, fit.params, z, q); }, level, nominal));
+    const Eigen::VectorXd gc = gradient * cross;
+    covariance += var_level * g * g.transpose() + gc * g.transpose() + g * gc.transpose();
   }
   const double k95 = out.widened ? student_t_975(fit.dof) : kZ975;
   std::vector<Estimate> linear(static_cast<size_t>(q));
@@ -163,8 +159,8 @@ Uncertainty propagate_uncertainty(const ShapeFit& fit, const Readings& readings,
     }
     const auto params = refit_points(family, perturbed, weights, fit.params);
     if (!params) continue;
-    const double level = fit.springing_from_ends ? end_readings_level(perturbed) : fit.springing_z;
-    const auto values = flatten(family, *params, level);
+    const double draw_level = fit.springing_from_ends ? end_readings_level(perturbed) : level;
+    const auto values = flatten(family, *params, draw_level);
     if (!values || !values->allFinite()) continue;
     for (Eigen::Index i = 0; i < q; ++i) columns[static_cast<size_t>(i)].push_back((*values)[i]);
   }

@@ -6,6 +6,7 @@
 #include <optional>
 #include <span>
 
+#include "geometry/core/end_readings.hpp"
 #include "geometry/core/reading.hpp"
 
 namespace soffit {
@@ -16,12 +17,12 @@ struct ArchExtent {
 
 // Empty when the points have no width or no height above their ends.
 inline std::optional<ArchExtent> arch_extent(std::span<const Point2> points) {
-  if (points.empty()) return std::nullopt;
-  const auto [lo, hi] = std::minmax_element(points.begin(), points.end(),
-                                            [](Point2 a, Point2 b) { return a.x < b.x; });
+  const auto ends = find_end_readings(points);
+  if (!ends) return std::nullopt;
+  const Point2 lo = points[ends->first], hi = points[ends->last];
   double top = points[0].z;
   for (const Point2& p : points) top = std::max(top, p.z);
-  ArchExtent e{(lo->x + hi->x) / 2.0, (hi->x - lo->x) / 2.0, (lo->z + hi->z) / 2.0, 0.0};
+  ArchExtent e{(lo.x + hi.x) / 2.0, (hi.x - lo.x) / 2.0, end_readings_level(points), 0.0};
   e.rise = top - e.springing_z;
   if (!(e.half_span > 0.0) || !(e.rise > 0.0)) return std::nullopt;
   return e;

@@ -65,6 +65,10 @@ class ShapeFamily {
 // families without an analytic gradient.
 double distance_with_gradient(const ShapeFamily& family, const SolverVector& params, Point2 p,
                               double* gradient);
+// ∂d/∂(x, z), the gradient of the signed distance with respect to the point:
+// the unit normal of the curve at the foot of p, pointing into the masonry
+// (numeric, central differences).
+Point2 distance_gradient_at_point(const ShapeFamily& family, const SolverVector& params, Point2 p);
 
 // Every family, simplest first.
 std::span<const ShapeFamily* const> shape_families();

@@ -82,7 +82,7 @@ SurveySheet read_plain_xz(const std::vector<CsvRow>& rows, const std::string& fi
     keys.push_back({x + "," + z, "the point x " + x + " m, z " + z + " m", "x"});
   }
   check_repeats_and_closures(keys, sheet.readings, false, file, sheet.warnings);
-  require_usable_readings(sheet.readings, file);
+  if (!opts.allow_few_readings) require_usable_readings(sheet.readings, file);
   bool any_unstated = false;
   for (const Reading& r : sheet.readings) any_unstated = any_unstated || r.sigma == 0.0;
   if (any_unstated) {

@@ -16,6 +16,9 @@ struct SheetOptions {
   // From the command line (--sigma-mm): replaces the sheet's default
   // precision, but not a per-reading sigma column.
   std::optional<double> default_sigma_m;
+  // A section being keyed in on site: fewer than 3 usable readings are kept
+  // (the fit then says it needs more) instead of refusing the sheet.
+  bool allow_few_readings = false;
 };
 
 SurveySheet read_sheet_file(const std::string& path, const SheetOptions& opts);

@@ -156,7 +156,7 @@ SurveySheet read_soffit_sheet(const std::vector<CsvRow>& rows, const std::string
     r.note = flags.back().note;
     sheet.readings.push_back(r);
   }
-  require_usable_readings(sheet.readings, file);
+  if (!opts.allow_few_readings) require_usable_readings(sheet.readings, file);
 
   MethodReduction red;
   switch (sheet.method) {

@@ -277,3 +277,143 @@ TEST_CASE("the demo's elevations: spandrels, supports and the defects already on
   CHECK(s2[1].origin == "S2 DS spandrel elevation: x from the S2 W springing, z above the springing");
   CHECK(s2[1].element == "S2 DS spandrel wall");
 }
+
+namespace {
+
+// A defect of the given reference through `points`, for the placement checks (which read only these).
+app::DefectOnRecord placed(const std::string& ref, app::PlanePath points) {
+  app::DefectOnRecord d;
+  d.id = "id-" + ref;
+  d.defect.fields.ref = ref;
+  d.defect.fields.geometry = points.size() == 1 ? storage::DefectGeometry::point : storage::DefectGeometry::line;
+  d.defect.fields.points = std::move(points);
+  return d;
+}
+
+std::vector<app::PlacementNote> notes_on(const app::ElevationFrame& e, const app::DefectOnRecord& d) {
+  return app::placement_notes(e, {&d});
+}
+
+std::vector<app::PlacementNote> notes_on(const app::BarrelFrame& b, const app::DefectOnRecord& d) {
+  return app::placement_notes(b, {&d});
+}
+
+bool says(const app::PlacementNote& note, const std::string& part) { return note.text.find(part) != std::string::npos; }
+
+}  // namespace
+
+TEST_CASE("placement_notes on the S1 DS spandrel: the demo's D03 lies in the arch opening - marks on the wall get none") {
+  DemoProject demo;
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  const auto barrels = data.barrels();
+  REQUIRE(barrels.size() == 2);
+  const auto s1 = data.elevations(barrels[0].span_id);
+  REQUIRE(s1.size() == 4);
+  const app::ElevationFrame& ds = s1[1];
+  REQUIRE(ds.kind == app::ElevationKind::ds_spandrel);
+  // FIELD.md §10.4: D03 is at x 3.2, 1.0 m above the springing. FIELD.md §10.2, S1 DS 2025: the crown
+  // station at x 3.2 reads 1286 mm over springing stations at −300, so the intrados there is 1.586 m
+  // above the springing: D03 as recorded is inside the arch opening, not on the wall.
+  const auto notes = app::placement_notes(ds, data.elevation_defects(ds));
+  REQUIRE(notes.size() == 1);
+  CHECK(notes[0].ref == "D03");
+  CHECK_FALSE(notes[0].defect_id.empty());
+  CHECK(notes[0].text ==
+        "D03: 1.0 m above the springing at x 3.2 is below the intrados (1.59 m), in the arch opening: "
+        "check its position or frame");
+  // The note changes nothing: D03 is still on the DS spandrel where it was recorded.
+  CHECK(data.elevation_defects(ds).size() == 1);
+
+  // Well placed: x 1.0, z 2.2 is on the wall above the haunch (FIELD.md §10.2, S1 DS 2025: the intrados is
+  // 0.796 m up at x 0.8 and 1.262 m at x 1.6).
+  CHECK(notes_on(ds, placed("D90", {{1.0, 2.2}})).empty());
+  // Just above the crown intrados (1.586 m at x 3.2), and 26 mm under it (within the 50 mm a finger or a
+  // tape places a mark to, common practice): no note. 86 mm under it: a note.
+  CHECK(notes_on(ds, placed("D91", {{3.2, 1.70}})).empty());
+  CHECK(notes_on(ds, placed("D92", {{3.2, 1.56}})).empty());
+  CHECK(notes_on(ds, placed("D93", {{3.2, 1.50}})).size() == 1);
+  // A line along the wall whose second point dips into the opening is named by that point.
+  const auto line = notes_on(ds, placed("D94", {{1.0, 2.2}, {2.4, 1.0}, {4.0, 2.2}}));
+  REQUIRE(line.size() == 1);
+  CHECK(says(line[0], "D94, point 2 of 3: 1.0 m above the springing at x 2.4 is below the intrados"));
+  // Beyond the span: the section's end stations are at x 0 and 6.4 (FIELD.md §10.2).
+  const auto beyond = notes_on(ds, placed("D95", {{6.9, 2.0}}));
+  REQUIRE(beyond.size() == 1);
+  CHECK(says(beyond[0], "x 6.9 is outside the span (0 to 6.4 m surveyed)"));
+  CHECK(notes_on(ds, placed("D96", {{-0.3, 2.0}})).size() == 1);
+  // Below the springing line a spandrel wall is not there: the abutment or pier is.
+  const auto under = notes_on(ds, placed("D97", {{0.2, -0.3}}));
+  REQUIRE(under.size() == 1);
+  CHECK(says(under[0], "0.3 m below the springing at x 0.2 is under the springing line"));
+  // The wall height is not recorded for the demo, so nothing is too high; once it is, above it is.
+  CHECK_FALSE(ds.recorded_height_m);
+  CHECK(notes_on(ds, placed("D98", {{1.0, 2.5}})).empty());
+  app::ElevationFrame with_height = ds;
+  with_height.recorded_height_m = 2.0;
+  const auto high = notes_on(with_height, placed("D98", {{1.0, 2.5}}));
+  REQUIRE(high.size() == 1);
+  CHECK(says(high[0], "2.5 m above the springing at x 1.0 is above the recorded wall height (2.0 m)"));
+  CHECK(notes_on(with_height, placed("D99", {{1.0, 1.9}})).empty());
+}
+
+TEST_CASE("placement_notes: D07 lies on the S2 wall above the opening - supports and other elevations are not checked") {
+  DemoProject demo;
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  const auto barrels = data.barrels();
+  REQUIRE(barrels.size() == 2);
+  const auto s2 = data.elevations(barrels[1].span_id);
+  REQUIRE(s2.size() == 4);
+  // The demo's D07 outline (demo_project.cpp) spans x 0.5-3.0 at z 1.6-2.2; FIELD.md §10.2, S2 mid-width
+  // 2025: the intrados is 1.153 m up at the crown (offset 1153 mm), so the outline is on the wall.
+  REQUIRE(data.elevation_defects(s2[0]).size() == 1);
+  CHECK(app::placement_notes(s2[0], data.elevation_defects(s2[0])).empty());
+  // The same outline moved down to z 0.3 at x 1.5 dips into the opening (intrados 1.149 m at x 1.525).
+  app::DefectOnRecord low = *data.elevation_defects(s2[0])[0];
+  for (auto& p : low.defect.fields.points) p.second -= 1.3;
+  const auto d07 = app::placement_notes(s2[0], {&low});
+  REQUIRE(d07.size() == 1);
+  CHECK(d07[0].ref == "D07");
+  CHECK(says(d07[0], "D07, point 1 of 4: 0.3 m above the springing at x 0.5 is below the intrados"));
+  // D09 is on the US parapet, which has no surveyed outline to check against.
+  CHECK(app::placement_notes(s2[3], data.elevation_defects(s2[3])).empty());
+  // D08's scour hole reaches 0.25 m below the pier's footing top (FIELD.md §10.4): a real place, not a slip.
+  const auto s1 = data.elevations(barrels[0].span_id);
+  REQUIRE(s1.size() == 4);
+  REQUIRE(data.elevation_defects(s1[3]).size() == 1);
+  CHECK(app::placement_notes(s1[3], data.elevation_defects(s1[3])).empty());
+}
+
+TEST_CASE("placement_notes on the barrel: s outside the arc or y outside the width gets a note") {
+  DemoProject demo;
+  app::InspectionData data;
+  data.load(*demo.project, kDemoRef);
+  const auto barrels = data.barrels();
+  REQUIRE(barrels.size() == 2);
+  // Every soffit defect of FIELD.md §10.4 lies within its span's arc (S1 7.418 m, S2 6.981 m) and the
+  // 5.20 m barrel width; D02 runs along the DS face at y 5.20, on the edge.
+  CHECK(app::placement_notes(barrels[0], data.soffit_defects(barrels[0].span_id)).empty());
+  CHECK(app::placement_notes(barrels[1], data.soffit_defects(barrels[1].span_id)).empty());
+  const app::BarrelFrame& s1 = barrels[0];
+  REQUIRE(s1.arc_known);
+  REQUIRE(s1.width_known);
+  // Past the E springing: 7.9 m along an arc of 7.418 m (FIELD.md §10.4).
+  const auto past = notes_on(s1, placed("D90", {{7.9, 2.0}}));
+  REQUIRE(past.size() == 1);
+  CHECK(says(past[0], "D90: s 7.9 (y 2.0) is outside the arc (0 to 7.4"));
+  CHECK(says(past[0], "check its position or frame"));
+  CHECK(notes_on(s1, placed("D91", {{-0.2, 2.0}})).size() == 1);
+  // A taped s at the far springing (7.418 m) is longer than the chords between stations: no note.
+  CHECK(notes_on(s1, placed("D92", {{7.418, 2.0}})).empty());
+  // Across the width: 5.5 m on a 5.20 m barrel (FIELD.md §10); 20 mm over is within placing accuracy.
+  const auto wide = notes_on(s1, placed("D93", {{3.0, 5.5}}));
+  REQUIRE(wide.size() == 1);
+  CHECK(says(wide[0], "y 5.5 (s 3.0) is outside the barrel width (0 to 5.2 m)"));
+  CHECK(notes_on(s1, placed("D94", {{3.0, 5.22}})).empty());
+  CHECK(notes_on(s1, placed("D95", {{3.0, -0.3}})).size() == 1);
+  // Unknown width or arc: nothing to check against in that direction.
+  app::BarrelFrame unknown = s1;
+  unknown.width_known = unknown.arc_known = false;
+  CHECK(notes_on(unknown, placed("D96", {{7.9, 5.5}})).empty());
+}

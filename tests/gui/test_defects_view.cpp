@@ -2,7 +2,8 @@
 // project (FIELD.md §10, invented): place a defect by tapping the barrel,
 // choosing its type and severity and confirming; undo it; delete one after
 // confirming; draw a crack line and an area outline by dragging; edit a
-// defect; place one on a spandrel elevation. Counts and stored fields are read
+// defect; place one on a spandrel elevation; ask for photos; see a placement
+// note. Counts and stored fields are read
 // back by separate storage queries, or from the reopened project file, not
 // from the view.
 #include <doctest/doctest.h>
@@ -21,7 +22,9 @@
 #include "headless_ui.hpp"
 #include "pointer_drag.hpp"
 #include "tests/app/demo_project_fixture.hpp"
+#include "app/gui/ui_probe.hpp"
 #include "storage/inspection_observations.hpp"
+#include "storage/sqlite_statement.hpp"
 
 using namespace soffit;
 namespace fs = std::filesystem;
@@ -52,10 +55,9 @@ std::optional<storage::DefectFields> reopened_defect(DemoProject& demo, const st
   return std::nullopt;
 }
 
-// Types a number on the width keypad (the field starts at "0": delete it first).
+// Types a number on the width keypad (a width not yet measured starts empty).
 void enter_width(test::HeadlessUi& ui, const std::string& digits) {
   REQUIRE(ui.tap("width"));
-  REQUIRE(ui.tap("key:<"));
   for (char k : digits) REQUIRE(ui.tap(std::string("key:") + k));
   REQUIRE(ui.tap("key:ok"));
 }
@@ -396,4 +398,103 @@ TEST_CASE("the rings view derives S1's ring thickness from the face counts of FI
   CHECK(us->rings_min == 4);
   CHECK(us->rings_max == 4);
   CHECK(!view.data().data().fill_depths.empty());  // FIELD.md §10: the 2019 trial pit and the 2025 depths
+}
+
+namespace {
+
+struct PhotosAsked {
+  std::string inspection_id;
+  std::optional<std::string> defect_id;
+};
+
+// D05's own row, by a query of its own: D05 is new in 2025 (FIELD.md §10.4), so its reference is unique.
+struct StoredDefect {
+  std::string id, inspection_id;
+  long long photos = 0;
+};
+StoredDefect stored_defect(DemoProject& demo, const std::string& ref) {
+  storage::Statement q(demo.project->db(),
+                       "SELECT id, inspection_id, (SELECT count(*) FROM photo_defect l WHERE l.defect_id = d.id) "
+                       "FROM defect d WHERE ref = ?1");
+  q.bind(1, ref);
+  StoredDefect out;
+  REQUIRE(q.step());
+  out.id = q.column_text(0);
+  out.inspection_id = q.column_text(1);
+  out.photos = q.column_int64(2);
+  CHECK_FALSE(q.step());  // one row only
+  return out;
+}
+
+}  // namespace
+
+TEST_CASE("Photos of a selected defect and of the visit ask the owner with the visit and defect ids") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  std::vector<PhotosAsked> asked;
+  view.set_photos_request([&](const std::string& inspection, const std::optional<std::string>& defect) {
+    asked.push_back({inspection, defect});
+  });
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.forget_controls();
+  ui.frame();
+  CHECK(ui.drawn("photos:visit"));
+  CHECK_FALSE(ui.drawn("photos:defect"));  // nothing selected yet
+  const StoredDefect d05 = stored_defect(demo, "D05");
+  // demo_project.cpp links one drawn picture to every defect it writes; the view counts the same links.
+  CHECK(d05.photos == 1);
+  REQUIRE(ui.tap("span:S2"));
+  // D05, the new missing brick in S2 at s 0.55, y 3.40 (FIELD.md §10.4).
+  ui.tap_at(*view.screen_point(0.55, 3.40));
+  REQUIRE(view.selected_defect() == d05.id);
+  for (const auto& d : view.data().defects())
+    if (d.id == d05.id) CHECK(d.defect.photo_count == d05.photos);
+  REQUIRE(ui.tap("photos:defect"));
+  REQUIRE(asked.size() == 1);  // once per tap, not once per frame
+  CHECK(asked[0].inspection_id == d05.inspection_id);
+  REQUIRE(asked[0].defect_id);
+  CHECK(*asked[0].defect_id == d05.id);
+  REQUIRE(ui.tap("photos:visit"));
+  REQUIRE(asked.size() == 2);
+  CHECK(asked[1].inspection_id == d05.inspection_id);
+  CHECK_FALSE(asked[1].defect_id);
+  // The buttons change nothing in the project: still the ten defects of 2025.
+  CHECK(demo.defects_in_db(d05.inspection_id) == 10);
+}
+
+TEST_CASE("without a photos callback the Photos buttons are not drawn") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.forget_controls();
+  ui.frame();
+  REQUIRE(ui.tap("span:S2"));
+  ui.tap_at(*view.screen_point(0.55, 3.40));
+  REQUIRE_FALSE(view.selected_defect().empty());
+  CHECK(ui.drawn("edit"));  // the selection row is there
+  CHECK_FALSE(ui.drawn("photos:defect"));
+  CHECK_FALSE(ui.drawn("photos:visit"));
+}
+
+TEST_CASE("the S1 DS spandrel shows a placement note for D03 under the drawing and leaves D03 where it is") {
+  DemoProject demo;
+  gui::DefectsView view;
+  view.open(*demo.project, kDemoRef);
+  test::HeadlessUi ui([&] { view.draw(); });
+  ui.forget_controls();
+  ui.frame();
+  CHECK_FALSE(ui.drawn("placement notes"));  // the S1 barrel's defects all lie on it (FIELD.md §10.4)
+  REQUIRE(ui.tap("surface:DS spandrel"));
+  ui.frame();
+  // FIELD.md §10.4 / §10.2: D03 at x 3.2, 1.0 m up, is under the S1 DS crown intrados (1.586 m).
+  CHECK(ui.drawn("placement notes"));
+  const ImVec2 note = gui::UiProbe::instance().centres.at("placement notes");
+  CHECK(note.y > view.screen_point(3.2, 0.0)->y);  // under the drawing
+  // Still drawn where recorded, and still selectable there.
+  ui.tap_at(*view.screen_point(3.2, 1.0));
+  REQUIRE_FALSE(view.selected_defect().empty());
+  for (const auto& d : view.data().defects())
+    if (d.id == view.selected_defect()) CHECK(d.defect.fields.ref == "D03");
 }

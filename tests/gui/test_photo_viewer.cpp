@@ -10,6 +10,7 @@
 #include <chrono>
 #include <cmath>
 #include <filesystem>
+#include <fstream>
 #include <optional>
 #include <string>
 #include <thread>
@@ -303,7 +304,7 @@ TEST_CASE("photo viewer: Add photo copies a typed file into the project on a wor
   ImGui::GetIO().AddInputCharactersUTF8("looking N");
   ui.frame();
   REQUIRE(ui.tap("confirm add photo"));
-  REQUIRE(frames_until(ui, [&] { return !viewer.holds_project(); }));
+  REQUIRE(frames_until(ui, [&] { return !viewer.importing(); }));
   CHECK(viewer.message().empty());
   CHECK(count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1", visit) == 11);
   CHECK(count(*demo.project, "SELECT count(*) FROM photo WHERE original_name = ?1 AND caption = ?2",
@@ -312,6 +313,75 @@ TEST_CASE("photo viewer: Add photo copies a typed file into the project on a wor
   CHECK(viewer.visit().photos[*viewer.selected()].original_name == "new-photo.png");
   REQUIRE(frames_until(ui, [&] { return viewer.photo_ready(); }));
   CHECK(viewer.photo_error().empty());
+}
+
+namespace {
+
+// Types `path` into the Add photo dialog and confirms it.
+void add_through_dialog(test::HeadlessUi& ui, const std::string& path) {
+  REQUIRE(ui.tap("add photo"));
+  REQUIRE(ui.tap("photo path"));
+  ImGui::GetIO().AddInputCharactersUTF8(path.c_str());
+  ui.frame();
+  REQUIRE(ui.tap("confirm add photo"));
+}
+
+size_t files_in(const std::string& folder) {
+  return static_cast<size_t>(std::distance(fs::directory_iterator(folder), fs::directory_iterator()));
+}
+
+}  // namespace
+
+TEST_CASE("photo viewer: Close photos during an import closes once the UI thread has stored the photo") {
+  DemoProject demo;
+  const std::string visit = visit_id(*demo.project, "2025-05-21");
+  std::vector<uint8_t> px(80 * 60 * 3, 90);
+  const std::string source = (demo.dir / "late-photo.png").string();
+  REQUIRE(stbi_write_png(source.c_str(), 80, 60, 3, px.data(), 80 * 3));
+  gui::PhotoViewer viewer;
+  viewer.open(*demo.project, visit);
+  test::HeadlessUi ui([&] {
+    viewer.poll();
+    viewer.draw();
+  });
+  ui.frame();
+  add_through_dialog(ui, source);
+  // Close is offered while the worker prepares the file; the view stays until the row is stored.
+  REQUIRE(ui.tap("close photos"));
+  REQUIRE(frames_until(ui, [&] { return !viewer.is_open(); }));
+  CHECK_FALSE(viewer.importing());
+  const std::string path = demo.project->path();
+  demo.project.reset();
+  demo.project.emplace(storage::Project::open(path, "test"));  // reopened: the row is in the file
+  CHECK(count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1 AND original_name = ?2", visit,
+              "late-photo.png") == 1);
+  storage::Statement q(demo.project->db(), "SELECT file_name FROM photo WHERE original_name = 'late-photo.png'");
+  REQUIRE(q.step());
+  CHECK(fs::exists(storage::photo_file_path(path, q.column_text(0))));
+}
+
+TEST_CASE("photo viewer: a file that is not a photo is refused with its name - no row, no file in the media folder") {
+  DemoProject demo;
+  const std::string visit = visit_id(*demo.project, "2025-05-21");
+  const std::string source = (demo.dir / "site-notes.jpg").string();
+  std::ofstream(source) << "site notes, not a photo\n";
+  const std::string media = storage::media_folder(demo.project->path());
+  const size_t files_before = files_in(media);
+  const long long rows_before = count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1", visit);
+  gui::PhotoViewer viewer;
+  viewer.open(*demo.project, visit);
+  test::HeadlessUi ui([&] {
+    viewer.poll();
+    viewer.draw();
+  });
+  ui.frame();
+  add_through_dialog(ui, source);
+  REQUIRE(frames_until(ui, [&] { return !viewer.importing(); }));
+  CAPTURE(viewer.message());
+  CHECK(viewer.message().find("Photo not added:") == 0);
+  CHECK(viewer.message().find("site-notes.jpg: not added: not a JPEG or PNG photo") != std::string::npos);
+  CHECK(count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1", visit) == rows_before);
+  CHECK(files_in(media) == files_before);
 }
 
 TEST_CASE("photo viewer: at most `keep_large` big photos stay as textures while the person goes through them") {

@@ -35,6 +35,9 @@ TEST_CASE("the demo project holds the Sallow Ford scenario of FIELD.md §10 and 
   CHECK_FALSE(p.report().unclean_close);
   CHECK(p.db().query_text("PRAGMA integrity_check") == "ok");
   CHECK(p.db().query_text("PRAGMA foreign_key_check") == "");
+  // A new inspector's first Undo must not take the demo apart: its making is not in the journal.
+  CHECK(count(p, "SELECT count(*) FROM edit_journal") == 0);
+  CHECK(p.undo_label().empty());
   CHECK(p.db().query_text("SELECT ref || '|' || name || '|' || location_fictitious FROM structure") ==
         "BVDC-ST-0417|Sallow Ford Bridge|1");
   CHECK(count(p, "SELECT count(*) FROM span") == 2);

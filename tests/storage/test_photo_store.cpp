@@ -9,7 +9,9 @@
 
 #include <cmath>
 #include <filesystem>
+#include <exception>
 #include <memory>
+#include <thread>
 
 #include "storage/observation_edits.hpp"
 #include "storage/photo_store.hpp"
@@ -256,4 +258,128 @@ TEST_CASE("a project open for viewing refuses new photos without writing the med
     CHECK(e.kind() == ErrorKind::read_only);
   }
   CHECK_FALSE(fs::exists(media_folder(path)));
+}
+
+TEST_CASE("prepare_photo runs on a worker thread while the project is used on this one - the row comes after") {
+  TempDir dir;
+  Project p = Project::create(dir.file("worker.soffit"), "J. Okafor");
+  const std::string src = dir.file("IMG_0002.png");
+  const auto pixels = checkerboard(600, 300);
+  REQUIRE(stbi_write_png(src.c_str(), 600, 300, 3, pixels.data(), 600 * 3) != 0);
+  const std::string original = soffit::test::read_bytes(src);
+
+  PreparedPhoto prepared;
+  std::exception_ptr failure;
+  std::thread worker([&, project_path = p.path()] {
+    try {
+      prepared = prepare_photo(project_path, src);  // paths only: the worker never sees the connection
+    } catch (...) {
+      failure = std::current_exception();
+    }
+  });
+  // Meanwhile the project is edited here, on its own thread, as the UI does.
+  p.edit("add structure", [&](Connection& db) {
+    StructureFields f;
+    f.ref = "BVDC-ST-0417";
+    insert_structure(db, p.author(), f);
+  });
+  worker.join();
+  REQUIRE_FALSE(failure);
+
+  // Prepared: the copy is in the media folder, the project has no row yet.
+  CHECK(prepared.created_media_file);
+  CHECK(prepared.original_name == "IMG_0002.png");
+  CHECK(prepared.record.id.empty());
+  CHECK(prepared.record.content_hash == sha256_hex(original.data(), original.size()));
+  CHECK(soffit::test::read_bytes(photo_file_path(p.path(), prepared.record.file_name)) == original);
+  const Decoded t = decode_png(prepared.thumbnail_png);
+  CHECK(t.w == 200);  // 600 × 300 in 3 × 3 boxes, as in the first test
+  CHECK(t.h == 100);
+  CHECK(photo_rows(p) == 0);
+  CHECK(p.undo_label() == "add structure");
+
+  const PhotoRecord r = insert_prepared_photo(p, prepared, {"", "looking up, top = DS face"});
+  CHECK_FALSE(r.already_present);
+  CHECK_FALSE(r.id.empty());
+  CHECK(p.undo_label() == "add photo IMG_0002.png");  // one edit, its own undo step
+  Statement q(p.db(), "SELECT original_name, caption, width_px, height_px, byte_size FROM photo WHERE id = ?1");
+  q.bind(1, r.id);
+  REQUIRE(q.step());
+  CHECK(q.column_text(0) == "IMG_0002.png");
+  CHECK(q.column_text(1) == "looking up, top = DS face");
+  CHECK(q.column_int64(2) == 600);
+  CHECK(q.column_int64(3) == 300);
+  CHECK(q.column_int64(4) == static_cast<long long>(original.size()));
+  REQUIRE(p.undo());
+  CHECK(photo_rows(p) == 0);
+  CHECK(p.db().query_int("SELECT count(*) FROM structure") == 1);  // the other edit stays
+}
+
+TEST_CASE("photo import: a refused file leaves no media file - a failed insert removes only the copy it made") {
+  TempDir dir;
+  Project p = Project::create(dir.file("prepare_refuse.soffit"), "J. Okafor");
+  auto corrupt = jpeg_bytes(64, 64);
+  corrupt.resize(40);
+  write_file(dir.file("cut.jpg"), corrupt);
+  try {
+    prepare_photo(p.path(), dir.file("cut.jpg"));
+    FAIL("prepared a damaged file");
+  } catch (const StorageError& e) {
+    CHECK(e.kind() == ErrorKind::invalid);
+    CHECK(std::string(e.what()).find("cut.jpg: not added: the image is damaged or unreadable") != std::string::npos);
+  }
+  CHECK_FALSE(fs::exists(media_folder(p.path())));
+  CHECK(photo_rows(p) == 0);
+
+  // A visit that does not exist breaks the row's foreign key, so the insert
+  // fails: the copy this preparation made goes with it.
+  write_file(dir.file("d04.jpg"), jpeg_bytes(48, 32));
+  const PreparedPhoto first = prepare_photo(p.path(), dir.file("d04.jpg"));
+  REQUIRE(first.created_media_file);
+  CHECK(media_files(p) == 1);
+  CHECK_THROWS_AS(insert_prepared_photo(p, first, {"no-such-visit", ""}), StorageError);
+  CHECK(media_files(p) == 0);
+  CHECK(photo_rows(p) == 0);
+  CHECK(p.undo_label() == "");
+
+  // A copy that was there before (here: stored, then undone, so redo still
+  // needs it) stays when a later insert of the same bytes fails.
+  const PhotoRecord stored = add_photo(p, dir.file("d04.jpg"));
+  REQUIRE(p.undo());
+  const PreparedPhoto again = prepare_photo(p.path(), dir.file("d04.jpg"));
+  CHECK_FALSE(again.created_media_file);
+  CHECK_THROWS_AS(insert_prepared_photo(p, again, {"no-such-visit", ""}), StorageError);
+  CHECK(fs::exists(photo_file_path(p.path(), stored.file_name)));
+  REQUIRE(p.redo());
+  CHECK(photo_rows(p) == 1);
+
+  // A photo prepared for one project is not stored in another.
+  Project other = Project::create(dir.file("other.soffit"), "J. Okafor");
+  write_file(dir.file("d05.jpg"), jpeg_bytes(40, 40));
+  const PreparedPhoto elsewhere = prepare_photo(p.path(), dir.file("d05.jpg"));
+  CHECK_THROWS_AS(insert_prepared_photo(other, elsewhere), StorageError);
+  CHECK(media_files(p) == 1);  // d04 only: the d05 copy went again
+  CHECK(photo_rows(other) == 0);
+}
+
+TEST_CASE("photo import: the same bytes prepared twice are one file and one row - the second insert is already_present") {
+  TempDir dir;
+  Project p = Project::create(dir.file("twice.soffit"), "J. Okafor");
+  write_file(dir.file("DSC_0101.jpg"), jpeg_bytes(64, 48));
+  fs::copy_file(dir.file("DSC_0101.jpg"), dir.file("DSC_0101 (copy).jpg"));
+  // Both prepared before either is stored, as two quick imports would be.
+  const PreparedPhoto a = prepare_photo(p.path(), dir.file("DSC_0101.jpg"));
+  const PreparedPhoto b = prepare_photo(p.path(), dir.file("DSC_0101 (copy).jpg"));
+  CHECK(a.created_media_file);
+  CHECK_FALSE(b.created_media_file);
+  CHECK(a.record.file_name == b.record.file_name);
+  const PhotoRecord first = insert_prepared_photo(p, a);
+  const PhotoRecord second = insert_prepared_photo(p, b);
+  CHECK_FALSE(first.already_present);
+  CHECK(second.already_present);
+  CHECK(second.id == first.id);
+  CHECK(photo_rows(p) == 1);
+  CHECK(media_files(p) == 1);
+  CHECK(p.db().query_text("SELECT original_name FROM photo") == "DSC_0101.jpg");
+  CHECK(p.undo_label() == "add photo DSC_0101.jpg");  // the second stored nothing, so no second undo step
 }
