@@ -90,17 +90,41 @@ bool is_defect_type(const std::string& type) {
   return std::any_of(std::begin(kDefectTypes), std::end(kDefectTypes), [&](const char* k) { return type == k; });
 }
 
-std::string add_ring_count(Connection& db, const std::string& author, const RingCountFields& f) {
+namespace {
+
+// One set of rules for a new and a changed ring count, so an edit cannot store what an add would refuse.
+void check_ring_count(Connection& db, const RingCountFields& f) {
   require_text(db, "ring count", "face", f.face);
   require_text(db, "ring count", "position", f.position);
   if (f.rings < 1 || f.rings > 20)
     refuse(db, "ring count: field 'rings' is " + std::to_string(f.rings) + "; expected 1 to 20");
   require_range(db, "ring count", "unit_depth_mm", f.unit_depth_mm, 1, 2000);
   require_range(db, "ring count", "thickness_mm", f.thickness_mm, 1, 5000);
+  require_range(db, "ring count", "thickness_lower_mm", f.thickness_lower_mm, 0, 5000);
+  require_range(db, "ring count", "thickness_upper_mm", f.thickness_upper_mm, 0, 5000);
   if (f.thickness_lower_mm && f.thickness_upper_mm && *f.thickness_lower_mm > *f.thickness_upper_mm)
     refuse(db, "ring count: field 'thickness_lower_mm' is above 'thickness_upper_mm'");
   if (!f.confidence.empty() && f.confidence != "low" && f.confidence != "medium" && f.confidence != "high")
     refuse(db, "ring count: field 'confidence' is '" + f.confidence + "'; expected low, medium or high");
+}
+
+void check_fill_depth(Connection& db, const FillDepthFields& f) {
+  if (f.method != "trial_pit" && f.method != "core" && f.method != "gpr" && f.method != "estimate")
+    refuse(db, "fill depth: field 'method' is '" + f.method + "'; expected trial_pit, core, gpr or estimate");
+  require_range(db, "fill depth", "chainage_m", f.chainage_m, -1e4, 1e4);
+  require_range(db, "fill depth", "offset_y_m", f.offset_y_m, -1e4, 1e4);
+  // Over 20 m of fill is not an arch bridge; the bound catches mm entered as m.
+  require_range(db, "fill depth", "depth_m", f.depth_m, 0, 20);
+  require_range(db, "fill depth", "uncertainty_m", f.uncertainty_m, 0, 20);
+  require_range(db, "fill depth", "surfacing_m", f.surfacing_m, 0, 5);
+  if (f.surfacing_m && *f.surfacing_m > f.depth_m)
+    refuse(db, "fill depth: field 'surfacing_m' is deeper than 'depth_m' (the depth includes the surfacing)");
+}
+
+}  // namespace
+
+std::string add_ring_count(Connection& db, const std::string& author, const RingCountFields& f) {
+  check_ring_count(db, f);
   const std::string id = new_uuid();
   Statement(db,
             "INSERT INTO ring_count (id, inspection_id, span_id, face, position, rings, unit_depth_mm, thickness_mm, "
@@ -113,14 +137,27 @@ std::string add_ring_count(Connection& db, const std::string& author, const Ring
   return id;
 }
 
+void update_ring_count(Connection& db, const std::string& author, const std::string& ring_count_id,
+                       const RingCountFields& f) {
+  check_ring_count(db, f);
+  Statement(db,
+            "UPDATE ring_count SET span_id = ?2, face = ?3, position = ?4, rings = ?5, unit_depth_mm = ?6, "
+            "thickness_mm = ?7, thickness_lower_mm = ?8, thickness_upper_mm = ?9, confidence = ?10, basis = ?11, "
+            "notes = ?12, modified_at = ?13, author = ?14 WHERE id = ?1")
+      .bind_all(ring_count_id, f.span_id, f.face, f.position, f.rings, f.unit_depth_mm, f.thickness_mm,
+                f.thickness_lower_mm, f.thickness_upper_mm, text_or_null(f.confidence), text_or_null(f.basis),
+                text_or_null(f.notes), utc_now(), author)
+      .run();
+  require_changed(db, "ring count", ring_count_id);
+}
+
+void delete_ring_count(Connection& db, const std::string& ring_count_id) {
+  Statement(db, "DELETE FROM ring_count WHERE id = ?1").bind(1, ring_count_id).run();
+  require_changed(db, "ring count", ring_count_id);
+}
+
 std::string add_fill_depth(Connection& db, const std::string& author, const FillDepthFields& f) {
-  if (f.method != "trial_pit" && f.method != "core" && f.method != "gpr" && f.method != "estimate")
-    refuse(db, "fill depth: field 'method' is '" + f.method + "'; expected trial_pit, core, gpr or estimate");
-  require_range(db, "fill depth", "chainage_m", f.chainage_m, -1e4, 1e4);
-  // Over 20 m of fill is not an arch bridge; the bound catches mm entered as m.
-  require_range(db, "fill depth", "depth_m", f.depth_m, 0, 20);
-  require_range(db, "fill depth", "uncertainty_m", f.uncertainty_m, 0, 20);
-  require_range(db, "fill depth", "surfacing_m", f.surfacing_m, 0, 5);
+  check_fill_depth(db, f);
   const std::string id = new_uuid();
   Statement(db,
             "INSERT INTO fill_depth (id, inspection_id, span_id, chainage_m, offset_y_m, method, depth_m, "
@@ -130,6 +167,23 @@ std::string add_fill_depth(Connection& db, const std::string& author, const Fill
                 f.surfacing_m, text_or_null(f.notes), utc_now(), author)
       .run();
   return id;
+}
+
+void update_fill_depth(Connection& db, const std::string& author, const std::string& fill_depth_id,
+                       const FillDepthFields& f) {
+  check_fill_depth(db, f);
+  Statement(db,
+            "UPDATE fill_depth SET span_id = ?2, chainage_m = ?3, offset_y_m = ?4, method = ?5, depth_m = ?6, "
+            "uncertainty_m = ?7, surfacing_m = ?8, notes = ?9, modified_at = ?10, author = ?11 WHERE id = ?1")
+      .bind_all(fill_depth_id, f.span_id, f.chainage_m, f.offset_y_m, f.method, f.depth_m, f.uncertainty_m,
+                f.surfacing_m, text_or_null(f.notes), utc_now(), author)
+      .run();
+  require_changed(db, "fill depth", fill_depth_id);
+}
+
+void delete_fill_depth(Connection& db, const std::string& fill_depth_id) {
+  Statement(db, "DELETE FROM fill_depth WHERE id = ?1").bind(1, fill_depth_id).run();
+  require_changed(db, "fill depth", fill_depth_id);
 }
 
 std::string add_defect(Connection& db, const std::string& author, const DefectFields& f) {

@@ -11,7 +11,17 @@
 namespace soffit::storage {
 
 std::string add_ring_count(Connection& db, const std::string& author, const RingCountFields& f);
+// Replace every field but the inspection (a count stays with its visit);
+// the same rules as the adds. Rows of an issued visit are refused by the
+// schema's triggers; an unknown id throws StorageError(not_found).
+void update_ring_count(Connection& db, const std::string& author, const std::string& ring_count_id,
+                       const RingCountFields& f);
+void delete_ring_count(Connection& db, const std::string& ring_count_id);
+
 std::string add_fill_depth(Connection& db, const std::string& author, const FillDepthFields& f);
+void update_fill_depth(Connection& db, const std::string& author, const std::string& fill_depth_id,
+                       const FillDepthFields& f);
+void delete_fill_depth(Connection& db, const std::string& fill_depth_id);
 
 // The vocabulary of defect_vocabulary.md; true if `type` is one of its keys.
 bool is_defect_type(const std::string& type);

@@ -7,6 +7,8 @@
 #include <exception>
 
 #include "app/gui/defect_marks.hpp"
+#include "app/gui/fitted_modal.hpp"
+#include "app/gui/flow_layout.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 
@@ -64,11 +66,15 @@ float wrap_width(float from) {
   return std::max(ImGui::GetFontSize() * 10.0f, ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x - from);
 }
 
+// Continues the row when a control `width` wide still fits, else starts a new
+// one: rows of fixed-size buttons wrap at a large text size.
+void same_line_if_room(float width) {
+  const float right = ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x + width;
+  if (right <= ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x) ImGui::SameLine();
+}
+
 bool button_choice(const char* label, bool chosen, ImVec2 size = ImVec2(0, 0)) {
-  if (chosen) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_ButtonActive));
-  const bool pressed = ImGui::Button(label, size);
-  if (chosen) ImGui::PopStyleColor();
-  return pressed;
+  return choice_button(label, chosen, size);
 }
 
 }  // namespace
@@ -177,7 +183,11 @@ void DefectsView::draw() {
                                : app::placement_notes(barrel, data_.soffit_defects(barrel.span_id));
   // Room under the drawing for the notes (a line each, more when one wraps) and the selection.
   const float note_rows = notes.empty() ? 0.0f : 0.4f + 1.3f * static_cast<float>(notes.size());
-  const float height = std::max(f * 8.0f, ImGui::GetContentRegionAvail().y - f * (4.0f + note_rows));
+  // At a large text size the rows above leave little room: the drawing keeps a
+  // plan big enough to tap marks apart (its labels plus 40% of the display) and
+  // the screen scrolls instead.
+  const float least = f * 7.0f + std::max(f * 4.0f, ImGui::GetIO().DisplaySize.y * 0.4f);
+  const float height = std::max(least, ImGui::GetContentRegionAvail().y - f * (4.0f + note_rows));
   if (elevation) {
     Plane p;
     p.a_min = elevation->x_min;
@@ -237,13 +247,15 @@ void DefectsView::draw_placement_notes(const std::vector<app::PlacementNote>& no
 void DefectsView::draw_toolbar(const std::vector<app::ElevationFrame>& elevations) {
   const auto& d = data_.data();
   ImGui::Text("%s, visit %s.", d.structure.fields.name.c_str(), d.inspection.date.c_str());
-  ImGui::SameLine();
+  // The caution beside the title only while it has room to read as a sentence, else under it.
+  if (wrap_width(ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x) >= ImGui::GetFontSize() * 16)
+    ImGui::SameLine();
   ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().caution));
-  ImGui::TextWrapped("Survey data, not an assessment: an engineer decides what a defect means.");
+  ImGui::TextWrapped("Survey data, not an assessment: a qualified engineer decides what a defect means.");
   ImGui::PopStyleColor();
   const auto barrels = data_.barrels();
   for (size_t i = 0; i < barrels.size(); ++i) {
-    if (i > 0) ImGui::SameLine();
+    if (i > 0) same_line_if_fits(("Span " + barrels[i].span_label).c_str());
     if (button_choice(("Span " + barrels[i].span_label).c_str(), i == span_)) {
       span_ = i;
       selected_id_.clear();
@@ -251,13 +263,17 @@ void DefectsView::draw_toolbar(const std::vector<app::ElevationFrame>& elevation
     }
     probe("span:" + barrels[i].span_label);
   }
-  ImGui::SameLine();
-  ImGui::AlignTextToFramePadding();
-  ImGui::TextUnformatted("  Surface:");
+  // The surface row wraps like words at a large text size ("Pier" must stay reachable);
+  // "Surface:" keeps its first button beside it.
   std::vector<std::string> names{kBarrel};
   for (const auto& e : elevations) names.push_back(e.name);
-  for (const std::string& name : names) {
-    ImGui::SameLine();
+  same_line_if_fits(("  Surface: " + capitalised(names.front())).c_str());
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextUnformatted("  Surface:");
+  for (size_t n = 0; n < names.size(); ++n) {
+    const std::string& name = names[n];
+    if (n == 0) ImGui::SameLine();
+    else same_line_if_fits(capitalised(name).c_str());
     if (button_choice(capitalised(name).c_str(), name == surface_)) {
       surface_ = name;
       selected_id_.clear();
@@ -285,7 +301,7 @@ void DefectsView::draw_modes() {
   const std::pair<Mode, const char*> modes[] = {
       {Mode::point, "Point"}, {Mode::line, "Crack line"}, {Mode::area, "Area outline"}};
   for (const auto& [mode, label] : modes) {
-    ImGui::SameLine();
+    same_line_if_fits(label);
     if (button_choice(label, mode_ == mode)) {
       mode_ = mode;
       corners_.clear();
@@ -294,43 +310,53 @@ void DefectsView::draw_modes() {
     probe(mode == Mode::point ? "mode:point" : mode == Mode::line ? "mode:line" : "mode:area");
   }
   if (mode_ == Mode::area && !corners_.empty()) {
-    ImGui::SameLine();
+    same_line_if_fits("Close area");
     ImGui::BeginDisabled(corners_.size() < 3);
     if (ImGui::Button("Close area")) close_area_ = true;
     probe("close area");
     ImGui::EndDisabled();
-    ImGui::SameLine();
+    same_line_if_fits("Remove last corner");
     if (ImGui::Button("Remove last corner")) corners_.pop_back();
     probe("remove corner");
   }
-  ImGui::SameLine(0, ImGui::GetFontSize() * 1.5f);
+  // A gap sets Undo apart from the drawing modes when it fits on their line.
+  if (ImGui::GetItemRectMax().x + ImGui::GetFontSize() * 1.5f + ImGui::CalcTextSize("Undo").x +
+          ImGui::GetStyle().FramePadding.x * 2 <=
+      ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x)
+    ImGui::SameLine(0, ImGui::GetFontSize() * 1.5f);
   const std::string undo_label = data_.undo_label(), redo_label = data_.redo_label();
   ImGui::BeginDisabled(undo_label.empty());
   if (ImGui::Button("Undo")) run("Undo", [&] { data_.undo(); });
   probe("undo");
   ImGui::EndDisabled();
-  ImGui::SameLine();
+  same_line_if_fits("Redo");
   ImGui::BeginDisabled(redo_label.empty());
   if (ImGui::Button("Redo")) run("Redo", [&] { data_.redo(); });
   probe("redo");
   ImGui::EndDisabled();
-  ImGui::SameLine();
+  same_line_if_fits("Legend");
   if (ImGui::Button("Legend")) open_legend_ = true;
   probe("legend");
   if (open_legend_) {
     ImGui::OpenPopup("Defect marks");
     open_legend_ = false;
   }
-  if (ImGui::BeginPopupModal("Defect marks", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+  static FittedModal legend;  // within the display at any text size, Close pinned below
+  if (legend.begin("Defect marks", 40)) {
     draw_defect_legend();
+    legend.footer();
     if (ImGui::Button("Close")) ImGui::CloseCurrentPopup();
     probe("close legend");
+    legend.end_footer();
     ImGui::EndPopup();
   }
   if (!undo_label.empty()) {
-    ImGui::SameLine();
+    const std::string note = saved_ + (saved_.empty() ? "" : "; ") + "next undo: " + undo_label;
+    same_line_if_fits(note.c_str());
     ImGui::AlignTextToFramePadding();
-    ImGui::TextDisabled("%s%snext undo: %s", saved_.c_str(), saved_.empty() ? "" : "; ", undo_label.c_str());
+    ImGui::PushTextWrapPos(0.0f);  // a long note wraps at the window edge rather than running off it
+    ImGui::TextDisabled("%s", note.c_str());
+    ImGui::PopTextWrapPos();
   }
   // One line that says what a touch on the surface does now.
   const char* how = mode_ == Mode::point
@@ -701,19 +727,19 @@ void DefectsView::draw_selection() {
   }
   probe("edit");
   if (photos_request_) {
-    ImGui::SameLine();
     // The count on the button itself, so it is seen before the tap (FIELD.md §6.3: an overall view and a close-up per defect).
     const int n = chosen->defect.photo_count;
     const std::string label = n == 0   ? "No photos of " + f.ref + " yet..."
                               : n == 1 ? "1 photo of " + f.ref + "..."
                                        : std::to_string(n) + " photos of " + f.ref + "...";
+    same_line_if_fits(label.c_str());
     if (ImGui::Button((label + "###photos").c_str())) photos_wanted_ = chosen->id;
     probe("photos:defect");
   }
-  ImGui::SameLine();
+  same_line_if_fits(("Delete " + f.ref + "...").c_str());
   if (ImGui::Button(("Delete " + f.ref + "...").c_str())) open_delete_ = true;
   probe("delete");
-  ImGui::SameLine();
+  same_line_if_fits("Clear selection");
   if (ImGui::Button("Clear selection")) selected_id_.clear();
   probe("deselect");
   std::string text = f.ref + ": " + words(f.defect_type) + ", " + f.element;
@@ -728,7 +754,9 @@ void DefectsView::draw_selection() {
   if (!photos_request_ && chosen->defect.photo_count > 0)  // else the Photos button says it
     text += ", " + std::to_string(chosen->defect.photo_count) + " photo(s)";
   if (!f.notes.empty()) text += ". " + f.notes;
-  ImGui::SameLine();
+  // Beside the buttons only while it has room to read as a sentence, else under them.
+  if (wrap_width(ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x) >= ImGui::GetFontSize() * 16)
+    ImGui::SameLine();
   ImGui::TextWrapped("%s", text.c_str());
 }
 
@@ -738,24 +766,26 @@ void DefectsView::draw_defect_form(storage::DefectGeometry geometry) {
   ImGui::TextUnformatted("Type:");
   int column = 0;
   for (const char* type : kDefectTypes) {
-    if (column++ % 4 != 0) ImGui::SameLine();
+    if (column++ > 0) same_line_if_room(big.x);  // four a row at scale 1, fewer at a large text size
     if (button_choice(words(type).c_str(), draft_.type == type, big)) draft_.type = type;
     probe(std::string("type:") + type);
   }
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Severity (soffit-1-5):");
   for (int s = 1; s <= 5; ++s) {
-    ImGui::SameLine();
+    same_line_if_room(f * 3.0f);
     if (button_choice(std::to_string(s).c_str(), draft_.severity == s, ImVec2(f * 3.0f, f * 2.2f))) draft_.severity = s;
     probe("severity:" + std::to_string(s));
   }
-  ImGui::SameLine();
+  same_line_if_fits("1 noted, 2 slight, 3 moderate, 4 severe, 5 urgent");
   ImGui::AlignTextToFramePadding();
+  ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("1 noted, 2 slight, 3 moderate, 4 severe, 5 urgent");
+  ImGui::PopTextWrapPos();
   if (has_width(draft_.type, geometry)) {
     ImGui::AlignTextToFramePadding();
     ImGui::TextUnformatted("Width at its widest:");
-    ImGui::SameLine();
+    same_line_if_room(f * 8.0f);
     const std::string shown = draft_.width_mm ? millimetres(*draft_.width_mm) : std::string("not measured");
     if (ImGui::Button((shown + "###width").c_str(), ImVec2(f * 8.0f, f * 2.2f))) {
       // A width not yet measured starts empty: nothing to delete before typing it.
@@ -766,14 +796,16 @@ void DefectsView::draw_defect_form(storage::DefectGeometry geometry) {
       ImGui::OpenPopup(keypad_.popup_id().c_str());
     }
     probe("width");
-    ImGui::SameLine();
+    same_line_if_fits("Not measured");
     ImGui::BeginDisabled(!draft_.width_mm);
     if (ImGui::Button("Not measured", ImVec2(0, f * 2.2f))) draft_.width_mm.reset();
     probe("clear width");
     ImGui::EndDisabled();
-    ImGui::SameLine();
+    same_line_if_fits("mm, by card, microscope or calliper");
     ImGui::AlignTextToFramePadding();
+    ImGui::PushTextWrapPos(0.0f);
     ImGui::TextDisabled("mm, by card, microscope or calliper");
+    ImGui::PopTextWrapPos();
     if (const auto v = keypad_.draw()) {
       // The project file refuses widths above 1 m (storage/observation_edits.cpp); say so here first.
       if (*v < 0 || *v > 1000) {
@@ -787,7 +819,8 @@ void DefectsView::draw_defect_form(storage::DefectGeometry geometry) {
     }
   }
   ImGui::TextUnformatted("Notes (optional):");
-  ImGui::InputTextMultiline("##notes", notes_, sizeof notes_, ImVec2(f * 30.0f, f * 3.0f));
+  ImGui::InputTextMultiline("##notes", notes_, sizeof notes_,
+                            ImVec2(std::min(f * 30.0f, ImGui::GetContentRegionAvail().x), f * 3.0f));
   probe("notes");
   draft_.notes = notes_;
   if (!form_error_.empty()) {
@@ -802,9 +835,13 @@ void DefectsView::draw_new_defect_popup() {
     ImGui::OpenPopup("New defect");
     open_new_ = false;
   }
-  if (!ImGui::BeginPopupModal("New defect", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  // Within the display at any text size, the save and cancel buttons pinned
+  // below the form; one modal at a time, so one layout state per dialog.
+  static FittedModal modal;
+  if (!modal.begin("New defect", 42)) return;
   const float f = ImGui::GetFontSize();
   if (!pending_) {
+    modal.footer();
     ImGui::CloseCurrentPopup();
     ImGui::EndPopup();
     return;
@@ -821,8 +858,9 @@ void DefectsView::draw_new_defect_popup() {
     std::snprintf(what, sizeof what, "Area on %s: %.2f m\xC2\xB2 inside %zu corners", p.where.c_str(),
                   app::shoelace_area(p.points), p.points.size());
   }
-  ImGui::TextUnformatted(what);
+  ImGui::TextWrapped("%s", what);
   draw_defect_form(p.geometry);
+  modal.footer();
   const bool ready = !draft_.type.empty() && draft_.severity != 0;
   ImGui::BeginDisabled(!ready);
   if (ImGui::Button("Save defect", ImVec2(f * 9.0f, f * 2.2f))) {
@@ -845,10 +883,13 @@ void DefectsView::draw_new_defect_popup() {
   }
   probe("cancel defect");
   if (!ready) {
-    ImGui::SameLine();
+    same_line_if_fits("Choose a type and a severity to save.");
     ImGui::AlignTextToFramePadding();
+    ImGui::PushTextWrapPos(0.0f);
     ImGui::TextDisabled("Choose a type and a severity to save.");
+    ImGui::PopTextWrapPos();
   }
+  modal.end_footer();
   ImGui::EndPopup();
 }
 
@@ -857,19 +898,22 @@ void DefectsView::draw_edit_popup() {
     ImGui::OpenPopup("Edit defect");
     open_edit_ = false;
   }
-  if (!ImGui::BeginPopupModal("Edit defect", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  static FittedModal modal;
+  if (!modal.begin("Edit defect", 42)) return;
   const float f = ImGui::GetFontSize();
   const app::DefectOnRecord* chosen = nullptr;
   for (const auto& d : data_.defects())
     if (d.id == selected_id_) chosen = &d;
   if (!chosen) {
+    modal.footer();
     ImGui::CloseCurrentPopup();
     ImGui::EndPopup();
     return;
   }
-  ImGui::Text("Edit %s on %s (its position stays as drawn)", chosen->defect.fields.ref.c_str(),
-              chosen->defect.fields.element.c_str());
+  ImGui::TextWrapped("Edit %s on %s (its position stays as drawn)", chosen->defect.fields.ref.c_str(),
+                     chosen->defect.fields.element.c_str());
   draw_defect_form(chosen->defect.fields.geometry);
+  modal.footer();
   ImGui::BeginDisabled(draft_.type.empty() || draft_.severity == 0);
   if (ImGui::Button("Save changes", ImVec2(f * 9.0f, f * 2.2f))) {
     const std::string id = chosen->id;
@@ -879,9 +923,10 @@ void DefectsView::draw_edit_popup() {
   }
   probe("save edit");
   ImGui::EndDisabled();
-  ImGui::SameLine();
+  same_line_if_room(f * 6.0f);
   if (ImGui::Button("Cancel", ImVec2(f * 6.0f, f * 2.2f))) ImGui::CloseCurrentPopup();
   probe("cancel edit");
+  modal.end_footer();
   ImGui::EndPopup();
 }
 
@@ -890,11 +935,13 @@ void DefectsView::draw_delete_popup() {
     ImGui::OpenPopup("Delete defect?");
     open_delete_ = false;
   }
-  if (!ImGui::BeginPopupModal("Delete defect?", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  static FittedModal modal;
+  if (!modal.begin("Delete defect?", 30)) return;
   std::string ref, id = selected_id_;
   for (const auto& d : data_.defects())
     if (d.id == id) ref = d.defect.fields.ref;
-  ImGui::Text("Delete %s and its photo links from this visit? Undo brings it back.", ref.c_str());
+  ImGui::TextWrapped("Delete %s and its photo links from this visit? Undo brings it back.", ref.c_str());
+  modal.footer();
   const float f = ImGui::GetFontSize();
   if (ImGui::Button("Delete", ImVec2(f * 6.0f, f * 2.2f))) {
     if (!id.empty()) run("Deleting the defect", [&] { data_.delete_defect(id, ref); });
@@ -902,9 +949,10 @@ void DefectsView::draw_delete_popup() {
     ImGui::CloseCurrentPopup();
   }
   probe("confirm delete");
-  ImGui::SameLine();
+  same_line_if_room(f * 6.0f);
   if (ImGui::Button("Keep", ImVec2(f * 6.0f, f * 2.2f))) ImGui::CloseCurrentPopup();
   probe("keep defect");
+  modal.end_footer();
   ImGui::EndPopup();
 }
 

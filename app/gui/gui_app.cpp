@@ -22,6 +22,7 @@
 #include "app/gui/project_screens.hpp"
 #include "app/gui/gl_texture.hpp"
 #include "app/gui/photo_viewer.hpp"
+#include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 
 namespace soffit::gui {
@@ -44,32 +45,73 @@ struct AppState {
   ProjectScreens screens{kAssets, author_name(), make_gl_texture_factory()};
 };
 
-void draw_top_bar(AppState& s) {
-  ImGui::AlignTextToFramePadding();
-  ImGui::TextUnformatted("Soffit");
-  const char* theme_label = s.theme == Theme::sunlight ? "Shade theme" : "Sunlight theme";
-  same_line_if_fits(theme_label);
+// Theme, text size, legend and a developer switch, in one popup so that the
+// top row keeps its room for the screens at a large text size.
+void draw_display_popup(AppState& s) {
+  if (!ImGui::BeginPopupModal("Display", nullptr, ImGuiWindowFlags_AlwaysAutoResize | ImGuiWindowFlags_NoMove))
+    return;
+  // Labelled by what it switches to: the current theme is already on screen.
+  const char* theme_label = s.theme == Theme::sunlight ? "Switch to shade theme" : "Switch to sunlight theme";
   if (ImGui::Button(theme_label)) {
     s.theme = s.theme == Theme::sunlight ? Theme::shade : Theme::sunlight;
     s.restyle = true;
   }
-  same_line_if_fits("Text -");
-  if (ImGui::Button("Text -") && s.scale > 0.76f) s.scale = std::max(0.75f, s.scale - 0.25f), s.restyle = true;
-  same_line_if_fits("Text +");
-  if (ImGui::Button("Text +") && s.scale < 2.49f) s.scale = std::min(2.5f, s.scale + 0.25f), s.restyle = true;
-  same_line_if_fits("scale 0.00");
+  probe("display:theme");
+  // A stepper: wide − and + either side of the size they change.
+  const ImVec2 step(ImGui::GetFrameHeight() * 1.6f, 0);
+  ImGui::BeginDisabled(s.scale < 0.76f);
+  if (ImGui::Button("\u2212##smaller", step)) s.scale = std::max(0.75f, s.scale - 0.25f), s.restyle = true;
+  probe("display:smaller");
+  ImGui::EndDisabled();
+  ImGui::SameLine();
   ImGui::AlignTextToFramePadding();
-  ImGui::Text("scale %.2f", s.scale);
-  same_line_if_fits("Legend");
-  if (ImGui::Button("Legend")) ImGui::OpenPopup("Legend");
+  ImGui::Text("Text %d%%", static_cast<int>(s.scale * 100 + 0.5f));
+  ImGui::SameLine();
+  ImGui::BeginDisabled(s.scale > 2.49f);
+  if (ImGui::Button("+##larger", step)) s.scale = std::min(2.5f, s.scale + 0.25f), s.restyle = true;
+  probe("display:larger");
+  ImGui::EndDisabled();
+  if (ImGui::Button("Legend\u2026")) ImGui::OpenPopup("Legend");
+  probe("display:legend");
   draw_legend_popup("Legend");
-  same_line_if_fits("[] Frame time");
-  ImGui::Checkbox("Frame time", &s.show_frame_time);
-  if (s.show_frame_time) {
-    same_line_if_fits("00.0 ms/frame");
-    ImGui::AlignTextToFramePadding();
-    ImGui::Text("%.1f ms/frame", 1000.0f / std::max(ImGui::GetIO().Framerate, 1e-3f));
-  }
+  ImGui::Checkbox("Developer: frame time", &s.show_frame_time);
+  probe("display:frame-time");
+  ImGui::Separator();
+  if (ImGui::Button("Close")) ImGui::CloseCurrentPopup();
+  probe("display:close");
+  ImGui::EndPopup();
+}
+
+// The top row: the app's name, the screens, and "Display…" at the right end;
+// it wraps like words when the text is large.
+void draw_top_bar(AppState& s) {
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextUnformatted("Soffit");
+  s.screens.draw_tabs();
+  const char* display = "Display\u2026";
+  const float width = ImGui::CalcTextSize(display).x + ImGui::GetStyle().FramePadding.x * 2;
+  same_line_if_fits(display);
+  const float right = ImGui::GetWindowContentRegionMax().x - width;
+  if (ImGui::GetCursorPosX() < right && ImGui::GetCursorScreenPos().y < ImGui::GetItemRectMax().y)
+    ImGui::SetCursorPosX(right);  // on the same row: at its right end, where it is always found
+  if (ImGui::Button(display)) ImGui::OpenPopup("Display");
+  probe("display");
+  draw_display_popup(s);
+}
+
+// Developer aid, off by default: the time per frame, small, in a corner.
+void draw_frame_time(const AppState& s) {
+  if (!s.show_frame_time) return;
+  const ImGuiViewport* vp = ImGui::GetMainViewport();
+  ImGui::SetNextWindowPos(ImVec2(vp->Pos.x + vp->Size.x - 8, vp->Pos.y + vp->Size.y - 8), ImGuiCond_Always,
+                          ImVec2(1, 1));
+  ImGui::SetNextWindowBgAlpha(0.8f);
+  ImGui::Begin("##frame-time", nullptr,
+               ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoInputs | ImGuiWindowFlags_AlwaysAutoResize |
+                   ImGuiWindowFlags_NoSavedSettings | ImGuiWindowFlags_NoFocusOnAppearing | ImGuiWindowFlags_NoNav);
+  ImGui::SetWindowFontScale(0.7f);
+  ImGui::Text("%.1f ms/frame", 1000.0f / std::max(ImGui::GetIO().Framerate, 1e-3f));
+  ImGui::End();
 }
 
 }  // namespace
@@ -99,6 +141,8 @@ int run_gui(const GuiOptions& options) {
   ImGui_ImplOpenGL3_Init("#version 130");
 
   AppState state;
+  // The theme to start in (shade for work under the arch; screenshots of both).
+  if (const char* theme = std::getenv("SOFFIT_THEME"); theme && std::string(theme) == "shade") state.theme = Theme::shade;
   if (options.ui_scale > 0) {
     state.scale = options.ui_scale;
   } else {
@@ -119,8 +163,9 @@ int run_gui(const GuiOptions& options) {
       state.screens.open_first_defects();
       if (state.screens.defects.data().loaded())
         state.screens.open_photos(state.screens.defects.data().data().inspection.id);
-    } else if (options.view == "rings") {
+    } else if (options.view == "rings" || options.view == "rings-add") {
       state.screens.open_first_rings_fill();
+      if (options.view == "rings-add") state.screens.rings_fill.show_add_count_for_screenshot();
     } else if (options.view == "change") {
       state.screens.open_first_sections();
       state.screens.screen = Screen::structure;
@@ -165,11 +210,11 @@ int run_gui(const GuiOptions& options) {
     ImGui::Begin("##main", nullptr,
                  ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoSavedSettings);
     draw_top_bar(state);
-    state.screens.draw_tabs();
     ImGui::Separator();
     state.screens.draw_current();
     drag_to_scroll();  // at a large text scale the screen itself is longer than the window
     ImGui::End();
+    draw_frame_time(state);
     ImGui::Render();
 
     int w = 0, h = 0;

@@ -24,7 +24,7 @@ bool parse_gui_options(int argc, char** argv, GuiOptions& options, std::string& 
       // One list for the check and the message (the README lists the same names).
       static const char* views[] = {"start",   "register", "add-structure", "structure", "new-section", "section", "keypad",
                                     "keyboard", "exclude", "defects",       "elevation", "photos",  "rings",
-                                    "change"};
+                                    "rings-add", "change"};
       if (std::find(std::begin(views), std::end(views), options.view) == std::end(views)) {
         std::string names;
         for (const char* v : views) names += (names.empty() ? "" : ", ") + std::string(v);

@@ -2,8 +2,11 @@
 
 #include <imgui.h>
 
+#include <algorithm>
 #include <cstdio>
 
+#include "app/gui/fitted_modal.hpp"
+#include "app/gui/flow_layout.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 
@@ -14,10 +17,8 @@ constexpr const char* kPopup = "New section";
 
 // A choice among a few, as buttons with the chosen one marked: no hover, no drop-down.
 bool choice(const char* label, bool chosen, const std::string& probe_name) {
-  if (chosen) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyle().Colors[ImGuiCol_ButtonActive]);
-  const bool pressed = ImGui::Button(label);
+  const bool pressed = choice_button(label, chosen);
   probe(probe_name);
-  if (chosen) ImGui::PopStyleColor();
   return pressed;
 }
 
@@ -37,15 +38,40 @@ void NewSectionDialog::request(const std::string& structure_ref, const std::stri
   open_ = true;
 }
 
+namespace {
+
+// The labels of the number rows, for the column their fields line up on.
+constexpr const char* kFieldLabels[] = {"Datum line RL (m)", "Springing line RL (m)", "Offsets measured",
+                                        "Precision, 1 sd (mm)"};
+
+// After a row's label: the field goes on the same line at the fields' column
+// when both fit, else under the label (a large text scale on a narrow screen).
+void to_field_column(float field_w) {
+  const ImGuiStyle& st = ImGui::GetStyle();
+  float column = 0;
+  for (const char* l : kFieldLabels) column = std::max(column, ImGui::CalcTextSize(l).x);
+  column += 2 * st.ItemSpacing.x;
+  if (column + field_w <= ImGui::GetContentRegionMax().x) ImGui::SameLine(column);
+}
+
+// Like same_line_if_fits, for a control of known width (a text field).
+void same_line_if_width_fits(float width) {
+  const float right = ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x + width;
+  if (right <= ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x) ImGui::SameLine();
+}
+
+}  // namespace
+
 void NewSectionDialog::keypad_field(const char* label, std::optional<double>& value, const char* probe_name,
                                     int decimals) {
+  const float field_w = ImGui::GetFontSize() * 8;
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted(label);
-  ImGui::SameLine(ImGui::GetFontSize() * 14);
+  to_field_column(field_w);
   char text[32] = "tap to enter";
   if (value) std::snprintf(text, sizeof text, "%.*f", decimals, *value);
   ImGui::PushID(probe_name);
-  const bool pressed = ImGui::Button(text, ImVec2(ImGui::GetFontSize() * 8, 0));
+  const bool pressed = ImGui::Button(text, ImVec2(field_w, 0));
   probe(probe_name);
   ImGui::PopID();
   if (pressed) {
@@ -55,21 +81,18 @@ void NewSectionDialog::keypad_field(const char* label, std::optional<double>& va
   }
 }
 
-std::optional<std::string> NewSectionDialog::draw(storage::Project* project) {
-  std::optional<std::string> made;
-  if (open_) {
-    ImGui::OpenPopup(kPopup);
-    open_ = false;
-  }
-  if (!ImGui::BeginPopupModal(kPopup, nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return made;
-  ImGui::Text("A section of the visit on %s, with no readings yet: type them in the section view.",
-              spec_.date.c_str());
+void NewSectionDialog::draw_body() {
+  ImGui::TextWrapped("A section of the visit on %s, with no readings yet: type them in the section view.",
+                     spec_.date.c_str());
 
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Span");
   for (const storage::SpanRecord& s : spans_) {
-    ImGui::SameLine();
-    const std::string name = s.label.empty() ? "S" + std::to_string(s.index) : s.label;
+    // snprintf, not "S" + to_string: GCC 12 warns falsely (-Wrestrict) on that concatenation.
+    char numbered[16];
+    std::snprintf(numbered, sizeof numbered, "S%d", s.index);
+    const std::string name = s.label.empty() ? std::string(numbered) : s.label;
+    same_line_if_fits(name.c_str());
     if (choice(name.c_str(), spec_.span_index == s.index, "new-section:span:" + name)) spec_.span_index = s.index;
   }
 
@@ -77,36 +100,52 @@ std::optional<std::string> NewSectionDialog::draw(storage::Project* project) {
   ImGui::TextUnformatted("Section");
   // The usual places (FIELD.md §3: each face and mid-width), one tap each, or any label typed.
   for (const char* quick : {"US", "MW", "DS"}) {
-    ImGui::SameLine();
+    same_line_if_fits(quick);
     if (choice(quick, std::string(label_) == quick, std::string("new-section:label:") + quick))
       std::snprintf(label_, sizeof label_, "%s", quick);
   }
-  ImGui::SameLine();
-  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 8);
+  const float label_w = ImGui::GetFontSize() * 8;
+  same_line_if_width_fits(label_w);
+  ImGui::SetNextItemWidth(label_w);
   ImGui::InputText("##label", label_, sizeof label_, ImGuiInputTextFlags_AutoSelectAll);  // a tap replaces a quick label
   probe("new-section:label");
 
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Booked as");
-  ImGui::SameLine();
-  const bool offsets = spec_.booking == app::NewSectionBooking::offsets;
-  if (choice("Offsets from a level line", offsets, "new-section:offsets"))
+  const bool was_offsets = spec_.booking == app::NewSectionBooking::offsets;
+  same_line_if_fits("Offsets from a level line");
+  if (choice("Offsets from a level line", was_offsets, "new-section:offsets"))
     spec_.booking = app::NewSectionBooking::offsets;
-  ImGui::SameLine();
-  if (choice("Points x, z (m)", !offsets, "new-section:xz")) spec_.booking = app::NewSectionBooking::xz;
+  same_line_if_fits("Points x, z (m)");
+  if (choice("Points x, z (m)", !was_offsets, "new-section:xz")) spec_.booking = app::NewSectionBooking::xz;
 
-  if (offsets) {
+  // Read again after the buttons: the rows below follow a tap on the frame it lands,
+  // so the form is measured as it now is.
+  if (spec_.booking == app::NewSectionBooking::offsets) {
     keypad_field("Datum line RL (m)", spec_.datum_rl_m, "new-section:datum", 3);
     keypad_field("Springing line RL (m)", spec_.z_origin_rl_m, "new-section:springing", 3);
     ImGui::AlignTextToFramePadding();
     ImGui::TextUnformatted("Offsets measured");
-    ImGui::SameLine(ImGui::GetFontSize() * 14);
+    to_field_column(ImGui::CalcTextSize("up").x + ImGui::CalcTextSize("down").x +
+                    4 * ImGui::GetStyle().FramePadding.x + ImGui::GetStyle().ItemSpacing.x);
     if (choice("up", !spec_.offsets_down, "new-section:up")) spec_.offsets_down = false;
-    ImGui::SameLine();
+    same_line_if_fits("down");
     if (choice("down", spec_.offsets_down, "new-section:down")) spec_.offsets_down = true;
     keypad_field("Precision, 1 sd (mm)", spec_.sigma_mm, "new-section:sigma", 1);
   }
+}
 
+std::optional<std::string> NewSectionDialog::draw(storage::Project* project) {
+  std::optional<std::string> made;
+  if (open_) {
+    ImGui::OpenPopup(kPopup);
+    open_ = false;
+  }
+  // At a large text size the form is taller than a landscape tablet: the popup
+  // keeps within the display, the form scrolls, Create and Cancel stay in view.
+  if (!modal_.begin(kPopup, 40)) return made;
+  draw_body();
+  modal_.footer();
   if (!error_.empty()) {
     ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().residual_below));
     ImGui::TextWrapped("Not made: %s", error_.c_str());
@@ -114,9 +153,10 @@ std::optional<std::string> NewSectionDialog::draw(storage::Project* project) {
   }
   const bool create = ImGui::Button("Create section");
   probe("new-section:create");
-  ImGui::SameLine();
+  same_line_if_fits("Cancel");
   const bool cancel = ImGui::Button("Cancel");
   probe("new-section:cancel");
+  modal_.end_footer();
   if (create && project) {
     spec_.label = label_;
     try {

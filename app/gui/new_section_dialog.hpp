@@ -5,6 +5,7 @@
 #include <string>
 #include <vector>
 
+#include "app/gui/fitted_modal.hpp"
 #include "app/gui/numeric_keypad.hpp"
 #include "app/model/new_section.hpp"
 #include "storage/project_file.hpp"
@@ -20,6 +21,7 @@ class NewSectionDialog {
   std::optional<std::string> draw(storage::Project* project);
 
  private:
+  void draw_body();
   // A number shown as a large button that opens the keypad on it.
   void keypad_field(const char* label, std::optional<double>& value, const char* probe_name, int decimals);
 
@@ -31,6 +33,7 @@ class NewSectionDialog {
   NumericKeypad keypad_;
   std::optional<double>* keypad_target_ = nullptr;
   bool open_keypad_ = false;
+  FittedModal modal_;  // within the display at any text size, Create and Cancel pinned
 };
 
 }  // namespace soffit::gui

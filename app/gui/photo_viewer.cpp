@@ -8,6 +8,7 @@
 #include <filesystem>
 
 #include "app/gui/defect_marks.hpp"
+#include "app/gui/fitted_modal.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 
@@ -351,14 +352,17 @@ void PhotoViewer::draw() {
   draw_toolbar();
   const float f = ImGui::GetFontSize();
   const ImVec2 avail = ImGui::GetContentRegionAvail();
+  // At a large text size the rows above leave little room: the photo keeps most
+  // of a display's height and the screen scrolls instead of shrinking it.
+  const float pane_h = std::max({f * 6, avail.y, ImGui::GetIO().DisplaySize.y * 0.75f});
   const float thumbs_w = f * 9.5f;
   // The scrollbar is always there, so thumbnails do not shift under a finger when it appears.
-  ImGui::BeginChild("##thumbnails", ImVec2(thumbs_w, std::max(f * 6, avail.y)), true,
+  ImGui::BeginChild("##thumbnails", ImVec2(thumbs_w, pane_h), true,
                     ImGuiWindowFlags_AlwaysVerticalScrollbar);
   draw_thumbnails();
   ImGui::EndChild();
   ImGui::SameLine();
-  ImGui::BeginChild("##photo", ImVec2(0, std::max(f * 6, avail.y)), false,
+  ImGui::BeginChild("##photo", ImVec2(0, pane_h), false,
                     ImGuiWindowFlags_NoScrollbar | ImGuiWindowFlags_NoScrollWithMouse);
   draw_photo(ImGui::GetContentRegionAvail());
   ImGui::EndChild();
@@ -602,10 +606,14 @@ void PhotoViewer::draw_choose_defect_popup() {
     ImGui::OpenPopup("Mark a defect");
     open_choose_ = false;
   }
-  if (!ImGui::BeginPopupModal("Mark a defect", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  // One modal is open at a time, so one layout state per dialog is enough (kept
+  // here: the class's header is not this file's).
+  static FittedModal modal;
+  if (!modal.begin("Mark a defect", 36)) return;
   const float f = ImGui::GetFontSize();
   const storage::VisitPhoto* p = shown();
-  ImGui::TextUnformatted("Which defect is on this photo? Then tap the photo where it is.");
+  ImGui::TextWrapped("Which defect is on this photo? Then tap the photo where it is.");
+  const float choice_w = std::min(f * 17.0f, ImGui::GetContentRegionAvail().x);
   std::vector<const storage::VisitDefectChoice*> order;
   if (focus_defect_)
     if (const auto* d = defect(*focus_defect_)) order.push_back(d);
@@ -613,19 +621,21 @@ void PhotoViewer::draw_choose_defect_popup() {
     if (!focus_defect_ || d.id != *focus_defect_) order.push_back(&d);
   int column = 0;
   for (const auto* d : order) {
-    if (column++ % 2 != 0) ImGui::SameLine();
+    if (column++ % 2 != 0) same_line_if_fits(choice_w);
     bool marked = false;
     if (p)
       for (const auto& l : p->links) marked = marked || l.defect_id == d->id;
     const std::string text = d->ref + "  " + words(d->defect_type) + ", " + d->element + (marked ? " (moves it)" : "");
-    if (ImGui::Button(text.c_str(), ImVec2(f * 17.0f, f * 2.2f))) {
+    if (ImGui::Button(text.c_str(), ImVec2(choice_w, f * 2.2f))) {
       marking_defect_ = d->id;
       ImGui::CloseCurrentPopup();
     }
     probe("defect:" + d->ref);
   }
+  modal.footer();
   if (ImGui::Button("Cancel", ImVec2(f * 6.0f, f * 2.2f))) ImGui::CloseCurrentPopup();
   probe("cancel choose");
+  modal.end_footer();
   ImGui::EndPopup();
 }
 
@@ -634,12 +644,14 @@ void PhotoViewer::draw_unlink_popup() {
     ImGui::OpenPopup("Remove link?");
     open_unlink_ = false;
   }
-  if (!ImGui::BeginPopupModal("Remove link?", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  static FittedModal modal;
+  if (!modal.begin("Remove link?", 30)) return;
   const float f = ImGui::GetFontSize();
   const storage::VisitPhoto* p = shown();
-  ImGui::Text("Remove the link between this photo and %s, and its marker? The photo and the defect stay.",
-              unlinking_.second.c_str());
-  ImGui::TextUnformatted("Undo brings the link back.");
+  ImGui::TextWrapped("Remove the link between this photo and %s, and its marker? The photo and the defect stay.",
+                     unlinking_.second.c_str());
+  ImGui::TextWrapped("Undo brings the link back.");
+  modal.footer();
   if (ImGui::Button("Remove link", ImVec2(f * 8.0f, f * 2.2f))) {
     if (p) {
       const std::string photo_id = p->id, defect_id = unlinking_.first;
@@ -649,9 +661,10 @@ void PhotoViewer::draw_unlink_popup() {
     ImGui::CloseCurrentPopup();
   }
   probe("confirm unlink");
-  ImGui::SameLine();
+  same_line_if_fits(f * 6.0f);
   if (ImGui::Button("Keep", ImVec2(f * 6.0f, f * 2.2f))) ImGui::CloseCurrentPopup();
   probe("keep link");
+  modal.end_footer();
   ImGui::EndPopup();
 }
 
@@ -662,13 +675,14 @@ void PhotoViewer::draw_import_popup() {
     folder_files_.clear();
     folder_note_.clear();
   }
-  if (!ImGui::BeginPopupModal("Add a photo", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
+  static FittedModal modal;
+  if (!modal.begin("Add a photo", 36)) return;
   const float f = ImGui::GetFontSize();
   ImGui::TextUnformatted("Photo file (JPEG or PNG):");
-  ImGui::SetNextItemWidth(f * 30);
+  ImGui::SetNextItemWidth(std::min(f * 30, ImGui::GetContentRegionAvail().x));
   ImGui::InputText("##path", import_path_, sizeof import_path_);
   probe("photo path");
-  ImGui::SameLine();
+  same_line_if_fits(button_width("List the folder"));
   ImGui::BeginDisabled(folder_job_.valid());
   if (ImGui::Button("List the folder")) {
     folder_files_.clear();
@@ -679,7 +693,7 @@ void PhotoViewer::draw_import_popup() {
   ImGui::EndDisabled();
   if (!folder_note_.empty()) ImGui::TextDisabled("%s", folder_note_.c_str());
   if (!folder_files_.empty()) {
-    ImGui::BeginChild("##files", ImVec2(f * 36, std::min(f * 12, f * 2.6f * static_cast<float>(folder_files_.size()))));
+    ImGui::BeginChild("##files", ImVec2(-FLT_MIN, std::min(f * 12, f * 2.6f * static_cast<float>(folder_files_.size()))));
     for (const std::string& file : folder_files_) {
       const std::string name = fs::path(file).filename().string();
       if (ImGui::Button(name.c_str(), ImVec2(-1, f * 2.2f)))
@@ -689,12 +703,15 @@ void PhotoViewer::draw_import_popup() {
     ImGui::EndChild();
   }
   ImGui::TextUnformatted("Caption:");
-  ImGui::SetNextItemWidth(f * 30);
+  ImGui::SetNextItemWidth(std::min(f * 30, ImGui::GetContentRegionAvail().x));
   ImGui::InputText("##caption", import_caption_, sizeof import_caption_);
   probe("photo caption");
   // FIELD.md §6.3: what a survey photo needs to be repeatable next visit.
+  ImGui::PushTextWrapPos(0.0f);  // the notes wrap in the dialog at a large text size
   ImGui::TextDisabled("Say which way it looks (\"looking N\"; soffit: \"looking up, top = DS face\").");
   ImGui::TextDisabled("The original is copied into the project unchanged, EXIF kept.");
+  ImGui::PopTextWrapPos();
+  modal.footer();
   ImGui::BeginDisabled(import_path_[0] == '\0' || importing());
   if (ImGui::Button("Add", ImVec2(f * 6.0f, f * 2.2f))) {
     const std::string project_path = project_->path(), path = import_path_;
@@ -719,9 +736,10 @@ void PhotoViewer::draw_import_popup() {
   }
   probe("confirm add photo");
   ImGui::EndDisabled();
-  ImGui::SameLine();
+  same_line_if_fits(f * 6.0f);
   if (ImGui::Button("Cancel", ImVec2(f * 6.0f, f * 2.2f))) ImGui::CloseCurrentPopup();
   probe("cancel add photo");
+  modal.end_footer();
   ImGui::EndPopup();
 }
 

@@ -114,7 +114,9 @@ void draw_profile_plot(const Readings& readings, const ProfileAnalysis& analysis
     std::snprintf(label, sizeof label, "grid 0.5 m; %zu of %zu readings drawn (all are fitted)", drawn,
                   readings.size());
   else
-    std::snprintf(label, sizeof label, "grid 0.5 m; residual bars and 95%% band drawn x%.0f", kResidualExaggeration);
+    std::snprintf(label, sizeof label,
+                  "grid 0.5 m; residual bars and the 95%% band exaggerated %.0f times (the curve is to scale)",
+                  kResidualExaggeration);
   draw->AddText(ImVec2(origin.x + pad * 0.5f, origin.y + pad * 0.3f), c.faint_ink, label);
   ImGui::Dummy(ImVec2(width, height));
 }

@@ -113,7 +113,13 @@ void ProjectScreens::open_demo() {
 void ProjectScreens::open_first_sections() {
   if (structures_.empty()) return;
   show_structure(structures_.front().structure.fields.ref);
-  if (detail_ && !detail_->inspections.empty()) open_sections(detail_->inspections.front());
+  if (!detail_) return;
+  // The latest visit with sections: the one being recorded, not an issued one from years ago.
+  for (auto v = detail_->inspections.rbegin(); v != detail_->inspections.rend(); ++v)
+    if (!v->sections.empty()) {
+      open_sections(*v);
+      return;
+    }
 }
 
 void ProjectScreens::open_first_defects() {
@@ -182,6 +188,14 @@ void ProjectScreens::reload_sections(const storage::InspectionRecord& visit) {
 
 ProjectScreens::~ProjectScreens() { photos.close(); }
 
+bool ProjectScreens::busy() const {
+  // A finished job waits to be collected by its screen; only one still running counts.
+  const auto running = [](const auto& job) {
+    return job.valid() && job.wait_for(std::chrono::seconds(0)) != std::future_status::ready;
+  };
+  return sections.busy() || photos.busy() || running(compare_job_) || running(geometry_job_);
+}
+
 void ProjectScreens::open_photos(const std::string& inspection_id, const std::optional<std::string>& defect_id) {
   if (!session_.project()) return;
   photos.open(*session_.project(), inspection_id, defect_id);
@@ -189,6 +203,11 @@ void ProjectScreens::open_photos(const std::string& inspection_id, const std::op
 }
 
 void ProjectScreens::draw_tabs() {
+  // One rule, the same on every screen: a structure's tabs are on once it is
+  // open and has a visit (Change: two). A tab whose view is not loaded yet
+  // opens the structure's latest visit there.
+  const bool structure = detail_.has_value();
+  const size_t visits = structure ? detail_->inspections.size() : 0;
   struct Tab {
     const char* label;
     Screen screen;
@@ -196,23 +215,32 @@ void ProjectScreens::draw_tabs() {
   };
   const Tab tabs[] = {{"Start", Screen::start, true},
                       {"Register", Screen::register_list, session_.is_open()},
-                      {"Structure", Screen::structure, detail_.has_value()},
-                      {"Sections", Screen::section, !sections.empty()},
-                      {"Defects", Screen::defects, visit_views_open_},
-                      {"Rings & fill", Screen::rings_fill, visit_views_open_},
-                      {"Photos", Screen::photos, photos.is_open()},
-                      {"Change", Screen::compare, changes_.has_value() || comparing()}};
-  bool first = true;  // the tabs start their own row under the top bar
+                      {"Structure", Screen::structure, structure},
+                      {"Sections", Screen::section, visits > 0},
+                      {"Defects", Screen::defects, visits > 0},
+                      {"Rings & fill", Screen::rings_fill, visits > 0},
+                      {"Photos", Screen::photos, visits > 0},
+                      {"Change", Screen::compare, visits > 1}};
   for (const Tab& t : tabs) {
-    if (!first) same_line_if_fits(t.label);
-    first = false;
+    same_line_if_fits(t.label);  // after the app's name on the top row, wrapping like words
     ImGui::BeginDisabled(!t.enabled);
-    const bool current = screen == t.screen;
-    if (current) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyle().Colors[ImGuiCol_ButtonActive]);
-    if (ImGui::Button(t.label)) screen = t.screen;
+    const bool pressed = choice_button(t.label, screen == t.screen);
     probe(std::string("tab:") + t.label);
-    if (current) ImGui::PopStyleColor();
     ImGui::EndDisabled();
+    if (!pressed) continue;
+    // (Only a structure's tabs reach the branches that read detail_: they are off without one.)
+    if (t.screen == Screen::section && (sections.empty() || sections_structure_id_ != detail_->structure.id)) {
+      open_sections(detail_->inspections.back());
+    } else if ((t.screen == Screen::defects || t.screen == Screen::rings_fill) && !visit_views_open_) {
+      open_visit_views(detail_->inspections.back().date);
+      screen = t.screen;
+    } else if (t.screen == Screen::photos && !photos.is_open()) {
+      open_photos(detail_->inspections.back().id);
+    } else if (t.screen == Screen::compare && !changes_ && !comparing()) {
+      start_comparison();
+    } else {
+      screen = t.screen;
+    }
   }
 }
 
@@ -247,12 +275,24 @@ void ProjectScreens::draw_start() {
   if (big_button("Open the demo project", "start:demo")) open_demo();
   ImGui::Spacing();
   ImGui::TextUnformatted("Project file (.soffit):");
-  ImGui::SetNextItemWidth(ImGui::GetFontSize() * 28);
+  // Open and Create new beside the path while it keeps room for a path, else
+  // under it: at a large text size nothing runs off the right edge.
+  const ImGuiStyle& style = ImGui::GetStyle();
+  const float buttons_w = ImGui::CalcTextSize("Open").x + ImGui::CalcTextSize("Create new").x +
+                          4 * style.FramePadding.x + 2 * style.ItemSpacing.x;
+  const float avail = ImGui::GetContentRegionAvail().x;
+  const bool beside = avail - buttons_w >= ImGui::GetFontSize() * 12;
+  ImGui::SetNextItemWidth(beside ? std::min(ImGui::GetFontSize() * 28, avail - buttons_w) : avail);
   ImGui::InputText("##path", path_, sizeof path_);
-  ImGui::SameLine();
-  if (ImGui::Button("Open")) open_path(path_, false);
-  ImGui::SameLine();
-  if (ImGui::Button("Create new")) open_path(path_, true);
+  probe("start:path");
+  if (beside) ImGui::SameLine();
+  const bool open = ImGui::Button("Open");
+  probe("start:open");
+  same_line_if_fits("Create new");
+  const bool create = ImGui::Button("Create new");
+  probe("start:create");
+  if (open) open_path(path_, false);
+  else if (create) open_path(path_, true);
   if (!message_.empty()) {
     ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(c.residual_below));
     ImGui::TextWrapped("%s", message_.c_str());
@@ -261,12 +301,17 @@ void ProjectScreens::draw_start() {
   if (!recent_.empty()) {
     ImGui::Spacing();
     ImGui::TextUnformatted("Recent projects");
+    // Each a full-width button, path from the left: it looks tappable, and a long path is cut at its end.
+    ImGui::PushStyleVar(ImGuiStyleVar_ButtonTextAlign, ImVec2(0.0f, 0.5f));
+    std::optional<std::string> chosen;
     for (size_t i = 0; i < recent_.size(); ++i) {
       ImGui::PushID(static_cast<int>(i));
-      if (ImGui::Selectable(recent_[i].c_str(), false, 0, ImVec2(0, ImGui::GetFrameHeight())))
-        open_path(recent_[i], false);
+      if (ImGui::Button(recent_[i].c_str(), ImVec2(-FLT_MIN, 0))) chosen = recent_[i];
+      probe("start:recent:" + std::to_string(i));
       ImGui::PopID();
     }
+    ImGui::PopStyleVar();
+    if (chosen) open_path(*chosen, false);  // after the loop: opening may rewrite the list
   }
 }
 
@@ -499,8 +544,12 @@ void ProjectScreens::draw_structure() {
   ImGui::Separator();
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Visits");
+  ImGui::SameLine();
+  const bool new_visit = ImGui::Button("New visit...");
+  probe("new-visit");
+  if (new_visit) new_visit_.request(detail_->structure.fields.ref, author_);
   if (detail_->inspections.size() >= 2) {
-    ImGui::SameLine();
+    same_line_if_fits("Change between the last two visits");
     const bool compare = ImGui::Button("Change between the last two visits");
     probe("compare");
     if (compare) start_comparison();
@@ -559,6 +608,10 @@ void ProjectScreens::draw_structure() {
   export_dialog.draw();
   draw_sign_off_dialogs();
   if (const auto made = new_section_.draw(session_.project())) show_new_section(*made);
+  if (const auto date = new_visit_.draw(session_.project())) {
+    show_structure(detail_->structure.fields.ref);
+    saved_note_ = saved_to(session_.path(), "Started the visit of " + *date);
+  }
   if (refresh_structure_) {
     refresh_structure_ = false;
     show_structure(detail_->structure.fields.ref);

@@ -7,6 +7,7 @@
 
 #include "app/gui/defects_view.hpp"
 #include "app/gui/new_section_dialog.hpp"
+#include "app/gui/new_visit_dialog.hpp"
 #include "app/gui/photo_viewer.hpp"
 #include "app/gui/export_dialog.hpp"
 #include "app/gui/rings_fill_view.hpp"
@@ -32,7 +33,7 @@ class ProjectScreens {
 
   // Opens (writing it first if needed) the demo project and shows the register.
   void open_demo();
-  // Opens the first visit of the first structure in the section view.
+  // Opens the latest visit with sections of the first structure in the section view.
   void open_first_sections();
   // Opens the latest visit of the first structure in the defects / rings and fill view.
   void open_first_defects();
@@ -56,7 +57,7 @@ class ProjectScreens {
   void start_comparison();
   bool comparing() const { return compare_job_.valid(); }
   // Something runs on a worker (a fit, a comparison, photos): keep frames coming.
-  bool busy() const { return sections.busy() || photos.busy() || comparing() || geometry_job_.valid(); }
+  bool busy() const;
   const std::optional<std::vector<app::SectionGeometry>>& latest_geometry() const { return geometry_; }
   const std::optional<std::vector<app::SectionChange>>& changes() const { return changes_; }
   // The register's "Add structure" form, opened as if tapped (for the screenshot view).
@@ -104,6 +105,7 @@ class ProjectScreens {
   bool open_issue_ = false, open_revise_ = false;
   bool refresh_structure_ = false;  // re-read the structure after a sign-off step
   NewSectionDialog new_section_;
+  NewVisitDialog new_visit_;
   std::future<std::vector<app::SectionGeometry>> geometry_job_;
   std::optional<std::vector<app::SectionGeometry>> geometry_;
   std::string geometry_key_, geometry_visit_;  // what the summary (or its job) is of

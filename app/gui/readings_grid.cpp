@@ -61,10 +61,8 @@ void ReadingsGrid::draw_entry_switch() {
   // Two plain buttons, the active one marked: a finger can always see which is on.
   for (const bool keypad : {true, false}) {
     const bool on = keypad_entry_ == keypad;
-    if (on) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyle().Colors[ImGuiCol_ButtonActive]);
-    const bool pressed = ImGui::Button(keypad ? (on ? "[Keypad]" : "Keypad") : (on ? "[Keyboard]" : "Keyboard"));
+    const bool pressed = choice_button(keypad ? (on ? "[Keypad]" : "Keypad") : (on ? "[Keyboard]" : "Keyboard"), on);
     probe(keypad ? "entry:keypad" : "entry:keyboard");
-    if (on) ImGui::PopStyleColor();
     if (pressed && !on) {
       keypad_entry_ = keypad;
       editing_.reset();
@@ -110,6 +108,15 @@ void ReadingsGrid::open_keypad(const SurveySheet& sheet, const Cell& cell, const
   keypad_cell_ = cell;
   const std::string which = cell.row < sheet.readings.size() ? "reading " + row_name(cell.row) : "new reading";
   keypad_.begin_text(column_title(sheet.columns[cell.column]) + ", " + which, text);
+  // The rest of the row, so the person knows which station they are on. Nothing
+  // from an earlier visit is shown: blind entry avoids anchoring (FIELD.md §3).
+  std::string context;
+  const std::vector<std::string>* cells =
+      cell.row < sheet.raw_rows.size() ? &sheet.raw_rows[cell.row].cells : nullptr;
+  for (size_t c = 0; cells && c < cells->size() && c < sheet.columns.size(); ++c)
+    if (c != cell.column && !(*cells)[c].empty() && app::is_typed_column(sheet.columns[c]))
+      context += (context.empty() ? "" : ", ") + column_title(sheet.columns[c]) + " " + (*cells)[c];
+  if (!context.empty()) keypad_.set_context(context);
   open_keypad_ = true;
 }
 
@@ -200,13 +207,14 @@ std::optional<app::RowEdit> ReadingsGrid::draw(const SurveySheet& sheet, bool ty
                            : sc.quantity == "id"        ? em * 2.5f
                            : sc.quantity == "note"      ? em * 6.5f
                                                         : em * 4.5f;
-      ImGui::TableSetupColumn(sc.name.c_str(), ImGuiTableColumnFlags_WidthFixed, width);
+      // "offset (mm)" rather than the sheet's "offset_mm": the same column, in words a person reads.
+      ImGui::TableSetupColumn(column_title(sc).c_str(), ImGuiTableColumnFlags_WidthFixed, width);
     }
     if (reduced_columns) {
-      ImGui::TableSetupColumn("x m", ImGuiTableColumnFlags_WidthFixed, em * 3.5f);
-      ImGui::TableSetupColumn("z m", ImGuiTableColumnFlags_WidthFixed, em * 3.5f);
+      ImGui::TableSetupColumn("x (m)", ImGuiTableColumnFlags_WidthFixed, em * 3.5f);
+      ImGui::TableSetupColumn("z (m)", ImGuiTableColumnFlags_WidthFixed, em * 3.5f);
     }
-    ImGui::TableSetupColumn("off curve mm", ImGuiTableColumnFlags_WidthFixed, em * 5.5f);
+    ImGui::TableSetupColumn("off curve (mm)", ImGuiTableColumnFlags_WidthFixed, em * 6.0f);
     // Used readings show the button that excludes them; excluded ones their reason and the way back.
     ImGui::TableSetupColumn("use in fit", ImGuiTableColumnFlags_WidthStretch);
     ImGui::TableHeadersRow();
@@ -291,7 +299,7 @@ std::optional<app::RowEdit> ReadingsGrid::draw(const SurveySheet& sheet, bool ty
     ImGui::EndTable();
   }
   // Dialogs live outside the table so a row scrolled out of view cannot close them.
-  draw_exclude_dialog(sheet, edit);
+  draw_exclude_dialog(sheet, residuals ? fit : nullptr, edit);
   draw_keypad(sheet, draft, edit);
   return edit;
 }
@@ -333,7 +341,8 @@ void ReadingsGrid::draw_keypad(const SurveySheet& sheet, std::vector<std::string
   }
 }
 
-void ReadingsGrid::draw_exclude_dialog(const SurveySheet& sheet, std::optional<app::RowEdit>& edit) {
+void ReadingsGrid::draw_exclude_dialog(const SurveySheet& sheet, const ShapeFit* fit,
+                                       std::optional<app::RowEdit>& edit) {
   if (open_exclude_) {
     ImGui::OpenPopup("Exclude reading");
     open_exclude_ = false;
@@ -341,6 +350,14 @@ void ReadingsGrid::draw_exclude_dialog(const SurveySheet& sheet, std::optional<a
   if (!ImGui::BeginPopupModal("Exclude reading", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) return;
   const size_t i = excluding_.value_or(0);
   ImGui::Text("Exclude reading %zu from the fit? It stays in the data with its reason.", i + 1);
+  // Which reading, in numbers: the person decides with the value in front of them.
+  if (i < sheet.readings.size()) {
+    const Reading& r = sheet.readings[i];
+    if (fit)
+      ImGui::Text("x %.3f m, z %.3f m, %+.1f mm off the fitted curve", r.x, r.z, fit->residuals[i] * 1000);
+    else
+      ImGui::Text("x %.3f m, z %.3f m", r.x, r.z);
+  }
   // Reasons from the trade's common errors (FIELD.md §3.3), one tap each.
   for (const char* quick : {"protruding unit", "recessed joint", "deposit or vegetation", "blunder"}) {
     const bool pressed = ImGui::Button(quick);

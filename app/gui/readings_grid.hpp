@@ -54,7 +54,7 @@ class ReadingsGrid {
               std::optional<app::RowEdit>& edit);
   std::optional<Cell> next_cell(const SurveySheet& sheet, const Cell& from, bool down) const;
   void draw_keypad(const SurveySheet& sheet, std::vector<std::string>& draft, std::optional<app::RowEdit>& edit);
-  void draw_exclude_dialog(const SurveySheet& sheet, std::optional<app::RowEdit>& edit);
+  void draw_exclude_dialog(const SurveySheet& sheet, const ShapeFit* fit, std::optional<app::RowEdit>& edit);
   void open_keypad(const SurveySheet& sheet, const Cell& cell, const std::string& text);
 
   bool keypad_entry_ = true;

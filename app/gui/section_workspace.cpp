@@ -208,7 +208,10 @@ void SectionWorkspace::draw_readings_table() {
   const size_t rows = e.sheet->readings.size();
   if (screenshot_dialog_ == "keypad" && rows > 0) grid_.open_keypad_on(*e.sheet, rows / 2);
   if (screenshot_dialog_ == "exclude" && rows > 0) grid_.open_exclude_on(rows / 2);
-  if (screenshot_dialog_ == "keyboard") grid_.set_keypad_entry(false);
+  if (screenshot_dialog_ == "keyboard") {
+    grid_.set_keypad_entry(false);
+    ImGui::SetScrollHereY(0.0f);  // the grid at the top of the view: the screenshot is of it
+  }
   screenshot_dialog_.clear();
 
   if (!message_.empty()) {

@@ -153,7 +153,7 @@ void StructureForm::draw_row(const char* id, std::initializer_list<Field> fields
     ImGui::TableNextRow();
     for (const Field& f : fields) {
       ImGui::TableNextColumn();
-      ImGui::TextUnformatted(f.label);
+      ImGui::TextWrapped("%s", f.label);  // a long label wraps in its column rather than being cut
     }
     ImGui::TableNextRow();
     for (const Field& f : fields) {
@@ -164,7 +164,7 @@ void StructureForm::draw_row(const char* id, std::initializer_list<Field> fields
     return;
   }
   for (const Field& f : fields) {
-    ImGui::TextUnformatted(f.label);
+    ImGui::TextWrapped("%s", f.label);  // at a large text size the label takes two lines, not the edge
     draw_input(f.key, *f.text, f.probe_name);
   }
 }
@@ -191,8 +191,13 @@ void StructureForm::draw_fields() {
             {"Longitude (-180 to 180)", "longitude", &longitude_, "form:longitude"},
             {"Number of spans", "number of spans", &spans_, "form:spans"}},
            wide);
-  ImGui::Checkbox("Location is fictitious (a placeholder, not the real site)", &fictitious_);
+  // A checkbox label does not wrap, so the words are a wrapped text beside the box; a tap on them ticks it too.
+  ImGui::Checkbox("##fictitious", &fictitious_);
   probe("form:fictitious");
+  ImGui::SameLine();
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextWrapped("Location is fictitious (a placeholder, not the real site)");
+  if (ImGui::IsItemClicked()) fictitious_ = !fictitious_;
   ImGui::TextUnformatted("Notes");
   ImGui::InputTextMultiline("##notes", &notes_, ImVec2(-FLT_MIN, ImGui::GetTextLineHeight() * 5));
   probe("form:notes");
@@ -218,8 +223,14 @@ bool StructureForm::draw(const Save& save) {
     return false;
   }
   // The buttons and the reason for a refusal stay in view below the scrolling fields.
-  const float footer = ImGui::GetFrameHeightWithSpacing() * 1.5f +
-                       (error_.empty() ? 0.0f : ImGui::GetTextLineHeightWithSpacing() * 2.5f);
+  // The reason is measured as it will wrap: at a large text size it can take several lines.
+  const float error_h =
+      error_.empty() ? 0.0f
+                     : ImGui::CalcTextSize(("Not saved: " + error_).c_str(), nullptr, false,
+                                           ImGui::GetContentRegionAvail().x)
+                               .y +
+                           ImGui::GetStyle().ItemSpacing.y;
+  const float footer = ImGui::GetFrameHeightWithSpacing() * 1.5f + error_h;
   ImGui::BeginChild("fields", ImVec2(0, -footer));
   draw_fields();
   ImGui::EndChild();
@@ -230,7 +241,9 @@ bool StructureForm::draw(const Save& save) {
     probe("form:error");
   }
   bool saved = false;
-  const ImVec2 button(ImGui::GetFontSize() * 9, ImGui::GetFrameHeight() * 1.3f);
+  // Both buttons on the one row the footer has room for, however narrow the display.
+  const ImVec2 button(std::min(ImGui::GetFontSize() * 9, (ImGui::GetContentRegionAvail().x - ImGui::GetStyle().ItemSpacing.x) / 2),
+                      ImGui::GetFrameHeight() * 1.3f);
   const bool save_pressed = ImGui::Button("Save", button);
   probe("form:save");
   ImGui::SameLine();

@@ -5,31 +5,15 @@
 // offset 1302 mm, quarter point 968 mm), so z = 0.300 m + offset (SHEET_FORMAT.md offsets reduction).
 #include <doctest/doctest.h>
 
-#include <chrono>
 #include <cmath>
-#include <cstdlib>
-#include <filesystem>
-#include <thread>
 
-#include <unistd.h>
-
-#include "app/gui/project_screens.hpp"
 #include "storage/register_queries.hpp"
 #include "storage/sheet_export.hpp"
-#include "tests/gui/headless_ui.hpp"
+#include "tests/gui/demo_screens_fixture.hpp"
 
 using namespace soffit;
 
 namespace {
-
-void settle(test::HeadlessUi& ui, gui::ProjectScreens& screens) {
-  for (int i = 0; i < 2000 && (screens.sections.busy() || !screens.sections.analysis()); ++i) {
-    ui.frame();
-    std::this_thread::sleep_for(std::chrono::milliseconds(2));
-  }
-  ui.frame();
-  ui.frame();
-}
 
 // Types `text` on the keypad that is open and presses `finish` (OK or Next).
 void keypad(test::HeadlessUi& ui, const std::string& text, const char* finish = "key:ok") {
@@ -42,24 +26,13 @@ void keypad(test::HeadlessUi& ui, const std::string& text, const char* finish = 
 }  // namespace
 
 TEST_CASE("New section on the draft visit, four readings on the keypad: the fit appears and the file holds them") {
-  namespace fs = std::filesystem;
-  const fs::path home = fs::temp_directory_path() / ("soffit_new_section_" + std::to_string(::getpid()));
-  fs::remove_all(home);
-  fs::create_directories(home);
-  ::setenv("XDG_DATA_HOME", home.c_str(), 1);
-  std::string project_path;
+  test::DemoScreens demo("new_section");
+  gui::ProjectScreens& screens = demo.screens();
+  test::HeadlessUi& ui = demo.ui();
+  ImGui::GetIO().DisplaySize = ImVec2(1280, 1800);  // upright tablet: the whole form and grid on screen
+  ui.frame();
+  const std::string project_path = demo.project_path();
   {
-    gui::ProjectScreens screens(SOFFIT_ASSETS, "test");
-    test::HeadlessUi ui([&] {
-      screens.sections.poll();
-      screens.draw_current();
-    });
-    ImGui::GetIO().DisplaySize = ImVec2(1280, 1800);  // upright tablet: the whole form and grid on screen
-    screens.open_demo();
-    project_path = screens.session().path();
-    screens.open_first_sections();
-    screens.screen = gui::Screen::structure;
-    ui.frame();
     CHECK_FALSE(ui.drawn("new-section:2019-05-14"));  // the issued visit takes no new section
     REQUIRE(ui.tap("new-section:2025-05-21"));
     REQUIRE(ui.tap("new-section:span:S1"));
@@ -75,7 +48,7 @@ TEST_CASE("New section on the draft visit, four readings on the keypad: the fit 
     ui.frame();
     REQUIRE(ui.tap("new-section:create"));
     REQUIRE(screens.screen == gui::Screen::section);
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     REQUIRE(screens.sections.sheet());
     CHECK(screens.sections.sheet()->readings.empty());
     CHECK_FALSE(screens.sections.analysis()->ok());  // no readings, no fit: said, not hidden
@@ -88,7 +61,7 @@ TEST_CASE("New section on the draft visit, four readings on the keypad: the fit 
       std::string off = offset;
       if (off[0] == '-') off = off.substr(1) + "-";  // the sign key toggles: type the digits, then +/-
       keypad(ui, off);
-      settle(ui, screens);
+      REQUIRE(demo.settle());
       if (screens.sections.readings()->size() == 3) {
         // Three readings: every family needs a fourth, and the view says how many more to take.
         CHECK_FALSE(screens.sections.analysis()->ok());
@@ -106,7 +79,7 @@ TEST_CASE("New section on the draft visit, four readings on the keypad: the fit 
     screens.rings_fill.close();
     screens.session().close();
   }
-  {
+  {  // a fresh connection to the file
     storage::Project p = storage::Project::open(project_path, "check");
     const auto detail = storage::structure_detail(p.db(), "BVDC-ST-0417");
     std::string id;
@@ -120,5 +93,4 @@ TEST_CASE("New section on the draft visit, four readings on the keypad: the fit 
     CHECK(std::abs(stored.readings[2].x - 6.4) < 1e-12);
     p.close();
   }
-  fs::remove_all(home);
 }

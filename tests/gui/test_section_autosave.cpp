@@ -4,18 +4,10 @@
 // deleted; issue: read-only once issued).
 #include <doctest/doctest.h>
 
-#include <chrono>
-#include <cstdlib>
-#include <filesystem>
-#include <thread>
-
-#include <unistd.h>
-
-#include "app/gui/project_screens.hpp"
 #include "app/model/sheet_rows.hpp"
 #include "storage/register_queries.hpp"
 #include "storage/sheet_export.hpp"
-#include "tests/gui/headless_ui.hpp"
+#include "tests/gui/demo_screens_fixture.hpp"
 
 using namespace soffit;
 
@@ -31,53 +23,33 @@ int excluded_in_file(gui::ProjectScreens& screens, const std::string& date) {
   return excluded;
 }
 
-void settle(test::HeadlessUi& ui, gui::ProjectScreens& screens) {
-  for (int i = 0; i < 2000 && (screens.sections.busy() || !screens.sections.analysis()); ++i) {
-    ui.frame();
-    std::this_thread::sleep_for(std::chrono::milliseconds(2));
-  }
-  ui.frame();
-  ui.frame();
-}
-
 }  // namespace
 
 TEST_CASE("an exclusion in a draft visit is saved to the project - undo and redo follow it into the file") {
-  namespace fs = std::filesystem;
-  const fs::path home = fs::temp_directory_path() / ("soffit_autosave_" + std::to_string(::getpid()));
-  fs::remove_all(home);
-  fs::create_directories(home);
-  ::setenv("XDG_DATA_HOME", home.c_str(), 1);
+  test::DemoScreens demo("autosave");
+  gui::ProjectScreens& screens = demo.screens();
+  test::HeadlessUi& ui = demo.ui();
   {
-    gui::ProjectScreens screens(SOFFIT_ASSETS, "test");
-    test::HeadlessUi ui([&] {
-      screens.sections.poll();
-      screens.draw_current();
-    });
-    screens.open_demo();
-    screens.open_first_sections();
-    screens.screen = gui::Screen::structure;
-    ui.frame();
     REQUIRE(ui.tap("visit:2025-05-21"));  // the draft visit's sections
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     REQUIRE(ui.tap("exclude:6"));
     REQUIRE(ui.tap("reason:blunder"));
     REQUIRE(ui.tap("confirm exclude"));
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     CHECK((*screens.sections.readings())[5].excluded);
     CHECK(excluded_in_file(screens, "2025-05-21") == 1);
     REQUIRE(ui.tap("undo"));
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     CHECK(excluded_in_file(screens, "2025-05-21") == 0);
     REQUIRE(ui.tap("redo"));
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     CHECK(excluded_in_file(screens, "2025-05-21") == 1);
 
     // The 2019 visit is issued: it is shown read-only, with no way to exclude or type.
     screens.screen = gui::Screen::structure;
     ui.frame();
     REQUIRE(ui.tap("visit:2019-05-14"));
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     ui.forget_controls();
     ui.frame();
     CHECK(ui.drawn("undo"));
@@ -85,33 +57,19 @@ TEST_CASE("an exclusion in a draft visit is saved to the project - undo and redo
     CHECK_FALSE(ui.drawn("cell:6:offset_mm"));
     CHECK_FALSE(ui.drawn("new:station_m"));
     CHECK(excluded_in_file(screens, "2019-05-14") == 0);
-    screens.defects.close();
-    screens.rings_fill.close();
   }
-  fs::remove_all(home);
 }
 
 TEST_CASE("a value corrected on the keypad is saved to the project as typed - reopening the file shows it - undo reverts the file") {
-  namespace fs = std::filesystem;
-  const fs::path home = fs::temp_directory_path() / ("soffit_typed_" + std::to_string(::getpid()));
-  fs::remove_all(home);
-  fs::create_directories(home);
-  ::setenv("XDG_DATA_HOME", home.c_str(), 1);
-  std::string project_path, typed, column;
+  test::DemoScreens demo("typed");
+  gui::ProjectScreens& screens = demo.screens();
+  test::HeadlessUi& ui = demo.ui();
+  const std::string project_path = demo.project_path();
+  std::string typed, column;
   SurveySheet before;
   {
-    gui::ProjectScreens screens(SOFFIT_ASSETS, "test");
-    test::HeadlessUi ui([&] {
-      screens.sections.poll();
-      screens.draw_current();
-    });
-    screens.open_demo();
-    project_path = screens.session().path();
-    screens.open_first_sections();
-    screens.screen = gui::Screen::structure;
-    ui.frame();
     REQUIRE(ui.tap("visit:2025-05-21"));  // a draft visit: it may be edited
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     const SurveySheet* sheet = screens.sections.sheet();
     REQUIRE(sheet);
     before = *sheet;
@@ -126,7 +84,7 @@ TEST_CASE("a value corrected on the keypad is saved to the project as typed - re
     for (size_t k = 0; k < 12; ++k) REQUIRE(ui.tap("key:<"));
     for (char ch : typed) REQUIRE(ui.tap(std::string("key:") + (ch == '-' ? '-' : ch)));
     REQUIRE(ui.tap("key:ok"));
-    settle(ui, screens);
+    REQUIRE(demo.settle());
     CHECK(screens.sections.message().empty());
     CHECK(screens.sections.sheet()->raw_rows[5].cells[c] == typed);
     CHECK(screens.sections.readings()->at(5).z != before.readings[5].z);
@@ -165,5 +123,4 @@ TEST_CASE("a value corrected on the keypad is saved to the project as typed - re
     CHECK(undone.readings[5].z == before.readings[5].z);
     p.close();
   }
-  fs::remove_all(home);
 }

@@ -5,6 +5,7 @@
 #include <doctest/doctest.h>
 
 #include <cmath>
+#include <functional>
 #include <nlohmann/json.hpp>
 
 #include "storage/observation_edits.hpp"
@@ -255,4 +256,148 @@ TEST_CASE("span details and visit details are stored, read back and undone as on
   CHECK(p.db().query_text("SELECT coalesce(inspector, '-') FROM inspection") == "-");
   REQUIRE(p.undo());
   CHECK(p.db().query_text("SELECT coalesce(barrel_width_m, '-') FROM span") == "-");
+}
+
+namespace {
+
+RingCountFields s1_us_crown(const Visit& v) {
+  RingCountFields r;
+  r.inspection_id = v.inspection_id;
+  r.span_id = v.span_id;
+  r.face = "US";
+  r.position = "crown";
+  r.rings = 4;           // FIELD.md §10: 4 rings at every face
+  r.unit_depth_mm = 110;  // brick 230 × 110 × 68 mm, FIELD.md §10
+  r.thickness_mm = 462;   // S1 US crown, FIELD.md §10
+  r.confidence = "medium";
+  r.basis = "face count only";
+  return r;
+}
+
+FillDepthFields s1_trial_pit(const Visit& v) {
+  FillDepthFields f;  // the 2019 trial pit over the S1 crown, FIELD.md §10 and §10.3
+  f.inspection_id = v.inspection_id;
+  f.span_id = v.span_id;
+  f.chainage_m = 3.2;
+  f.offset_y_m = 4.60;
+  f.method = "trial_pit";
+  f.depth_m = 0.455;
+  f.surfacing_m = 0.110;
+  return f;
+}
+
+ErrorKind kind_of(const std::function<void()>& f) {
+  try {
+    f();
+  } catch (const StorageError& e) {
+    return e.kind();
+  }
+  FAIL("no StorageError");
+  return ErrorKind::invalid;
+}
+
+}  // namespace
+
+TEST_CASE("a ring count is changed and deleted as one undo step each, with the same rules as adding it") {
+  TempDir dir;
+  Project p = Project::create(dir.file("ring_edit.soffit"), "J. Okafor");
+  const Visit v = sallow_ford_2019(p);
+  RingCountFields r = s1_us_crown(v);
+  std::string id;
+  p.edit("add ring count", [&](Connection& db) { id = add_ring_count(db, p.author(), r); });
+
+  r.rings = 5;  // a fifth ring found at the crown on a second look
+  r.thickness_mm = 590;
+  r.confidence = "high";
+  r.basis = "core";
+  p.edit("edit ring count", [&](Connection& db) { update_ring_count(db, "M. Lindqvist", id, r); });
+  Statement q(p.db(), "SELECT rings, thickness_mm, confidence, basis, author, inspection_id FROM ring_count WHERE id = ?1");
+  q.bind(1, id);
+  REQUIRE(q.step());
+  CHECK(q.column_int64(0) == 5);
+  CHECK(q.column_double(1) == 590.0);
+  CHECK(q.column_text(2) == "high");
+  CHECK(q.column_text(3) == "core");
+  CHECK(q.column_text(4) == "M. Lindqvist");
+  CHECK(q.column_text(5) == v.inspection_id);
+  REQUIRE(p.undo());
+  CHECK(p.db().query_int("SELECT rings FROM ring_count") == 4);
+
+  r.rings = 21;  // storage takes 1 to 20 rings (observation_edits.cpp)
+  CHECK(message_of([&] { p.edit("bad", [&](Connection& db) { update_ring_count(db, p.author(), id, r); }); })
+            .find("field 'rings'") != std::string::npos);
+  r.rings = 4;
+  r.thickness_lower_mm = 600;
+  r.thickness_upper_mm = 350;
+  CHECK(message_of([&] { p.edit("bad", [&](Connection& db) { update_ring_count(db, p.author(), id, r); }); })
+            .find("field 'thickness_lower_mm'") != std::string::npos);
+  CHECK(p.db().query_int("SELECT rings FROM ring_count") == 4);  // the refused edit changed nothing
+  CHECK(kind_of([&] { p.edit("bad", [&](Connection& db) { update_ring_count(db, p.author(), "nope", s1_us_crown(v)); }); }) ==
+        ErrorKind::not_found);
+
+  p.edit("delete ring count", [&](Connection& db) { delete_ring_count(db, id); });
+  CHECK(count(p, "ring_count") == 0);
+  CHECK(kind_of([&] { p.edit("bad", [&](Connection& db) { delete_ring_count(db, id); }); }) == ErrorKind::not_found);
+  REQUIRE(p.undo());
+  CHECK(p.db().query_text("SELECT id FROM ring_count") == id);
+}
+
+TEST_CASE("a fill depth is changed and deleted as one undo step each, and mm typed as m is refused") {
+  TempDir dir;
+  Project p = Project::create(dir.file("fill_edit.soffit"), "J. Okafor");
+  const Visit v = sallow_ford_2019(p);
+  FillDepthFields f = s1_trial_pit(v);
+  std::string id;
+  p.edit("add fill depth", [&](Connection& db) { id = add_fill_depth(db, p.author(), f); });
+  f.uncertainty_m = 0.005;  // (d + h) to ±5 mm, FIELD.md §5
+  f.method = "core";
+  p.edit("edit fill depth", [&](Connection& db) { update_fill_depth(db, p.author(), id, f); });
+  CHECK(p.db().query_text("SELECT method FROM fill_depth") == "core");
+  CHECK(std::abs(p.db().query_int("SELECT round(uncertainty_m * 1000) FROM fill_depth") - 5) == 0);
+  REQUIRE(p.undo());
+  CHECK(p.db().query_text("SELECT method FROM fill_depth") == "trial_pit");
+
+  f.surfacing_m = 110;  // millimetres typed into a metre field
+  CHECK(message_of([&] { p.edit("bad", [&](Connection& db) { update_fill_depth(db, p.author(), id, f); }); })
+            .find("field 'surfacing_m'") != std::string::npos);
+  f.surfacing_m = 0.6;  // more surfacing than the whole depth it is part of (FIELD.md §5)
+  CHECK(message_of([&] { p.edit("bad", [&](Connection& db) { update_fill_depth(db, p.author(), id, f); }); })
+            .find("field 'surfacing_m'") != std::string::npos);
+  f.surfacing_m = 0.110;
+  f.offset_y_m = std::nan("");
+  CHECK(message_of([&] { p.edit("bad", [&](Connection& db) { add_fill_depth(db, p.author(), f); }); })
+            .find("field 'offset_y_m'") != std::string::npos);
+  CHECK(count(p, "fill_depth") == 1);
+
+  p.edit("delete fill depth", [&](Connection& db) { delete_fill_depth(db, id); });
+  CHECK(count(p, "fill_depth") == 0);
+  REQUIRE(p.undo());
+  CHECK(count(p, "fill_depth") == 1);
+}
+
+TEST_CASE("ring counts and fill depths of an issued visit can be neither changed nor deleted") {
+  TempDir dir;
+  Project p = Project::create(dir.file("issued.soffit"), "J. Okafor");
+  const Visit v = sallow_ford_2019(p);
+  RingCountFields r = s1_us_crown(v);
+  const FillDepthFields f = s1_trial_pit(v);
+  std::string ring_id, fill_id;
+  p.edit("observations", [&](Connection& db) {
+    ring_id = add_ring_count(db, p.author(), r);
+    fill_id = add_fill_depth(db, p.author(), f);
+  });
+  p.edit("check", [&](Connection& db) { set_inspection_status(db, p.author(), v.inspection_id, "checked"); });
+  p.edit("issue", [&](Connection& db) { set_inspection_status(db, p.author(), v.inspection_id, "issued"); });
+  r.rings = 5;
+  const auto refused = [&](const std::function<void(Connection&)>& change) {
+    const std::string m = message_of([&] { p.edit("refused", change); });
+    CHECK(m.find("issued") != std::string::npos);
+  };
+  refused([&](Connection& db) { update_ring_count(db, p.author(), ring_id, r); });
+  refused([&](Connection& db) { delete_ring_count(db, ring_id); });
+  refused([&](Connection& db) { update_fill_depth(db, p.author(), fill_id, f); });
+  refused([&](Connection& db) { delete_fill_depth(db, fill_id); });
+  CHECK(p.db().query_int("SELECT rings FROM ring_count") == 4);
+  CHECK(count(p, "fill_depth") == 1);
+  CHECK(p.undo_label() == "issue");
 }
