@@ -7,6 +7,7 @@
 
 #include "app/gui/fitted_modal.hpp"
 #include "app/gui/flow_layout.hpp"
+#include "app/gui/form_footer.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 
@@ -62,23 +63,13 @@ void same_line_if_width_fits(float width) {
 
 }  // namespace
 
-void NewSectionDialog::keypad_field(const char* label, std::optional<double>& value, const char* probe_name,
-                                    int decimals) {
+void NewSectionDialog::number_row(const char* label, std::optional<double>& value, const char* probe_name,
+                                  int decimals) {
   const float field_w = ImGui::GetFontSize() * 8;
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted(label);
   to_field_column(field_w);
-  char text[32] = "tap to enter";
-  if (value) std::snprintf(text, sizeof text, "%.*f", decimals, *value);
-  ImGui::PushID(probe_name);
-  const bool pressed = ImGui::Button(text, ImVec2(field_w, 0));
-  probe(probe_name);
-  ImGui::PopID();
-  if (pressed) {
-    keypad_.begin_text(label, value ? std::string(text) : std::string());
-    keypad_target_ = &value;
-    open_keypad_ = true;
-  }
+  numbers_.button(value, probe_name, field_w, label, decimals);
 }
 
 void NewSectionDialog::draw_body() {
@@ -122,8 +113,8 @@ void NewSectionDialog::draw_body() {
   // Read again after the buttons: the rows below follow a tap on the frame it lands,
   // so the form is measured as it now is.
   if (spec_.booking == app::NewSectionBooking::offsets) {
-    keypad_field("Datum line RL (m)", spec_.datum_rl_m, "new-section:datum", 3);
-    keypad_field("Springing line RL (m)", spec_.z_origin_rl_m, "new-section:springing", 3);
+    number_row("Datum line RL (m)", spec_.datum_rl_m, "new-section:datum", 3);
+    number_row("Springing line RL (m)", spec_.z_origin_rl_m, "new-section:springing", 3);
     ImGui::AlignTextToFramePadding();
     ImGui::TextUnformatted("Offsets measured");
     to_field_column(ImGui::CalcTextSize("up").x + ImGui::CalcTextSize("down").x +
@@ -131,7 +122,7 @@ void NewSectionDialog::draw_body() {
     if (choice("up", !spec_.offsets_down, "new-section:up")) spec_.offsets_down = false;
     same_line_if_fits("down");
     if (choice("down", spec_.offsets_down, "new-section:down")) spec_.offsets_down = true;
-    keypad_field("Precision, 1 sd (mm)", spec_.sigma_mm, "new-section:sigma", 1);
+    number_row("Precision, 1 sd (mm)", spec_.sigma_mm, "new-section:sigma", 1);
   }
 }
 
@@ -145,19 +136,8 @@ std::optional<std::string> NewSectionDialog::draw(storage::Project* project) {
   // keeps within the display, the form scrolls, Create and Cancel stay in view.
   if (!modal_.begin(kPopup, 40)) return made;
   draw_body();
-  modal_.footer();
-  if (!error_.empty()) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().residual_below));
-    ImGui::TextWrapped("Not made: %s", error_.c_str());
-    ImGui::PopStyleColor();
-  }
-  const bool create = ImGui::Button("Create section");
-  probe("new-section:create");
-  same_line_if_fits("Cancel");
-  const bool cancel = ImGui::Button("Cancel");
-  probe("new-section:cancel");
-  modal_.end_footer();
-  if (create && project) {
+  const FormAnswer answer = create_or_cancel_footer(modal_, error_, "Create section", "new-section");
+  if (answer == FormAnswer::create && project) {
     spec_.label = label_;
     try {
       made = app::add_blank_section(*project, spec_);
@@ -165,23 +145,12 @@ std::optional<std::string> NewSectionDialog::draw(storage::Project* project) {
     } catch (const std::exception& e) {
       error_ = e.what();
     }
-  } else if (cancel) {
+  } else if (answer == FormAnswer::cancel) {
     ImGui::CloseCurrentPopup();
   }
 
   // The keypad opens over the form, on the field tapped.
-  if (open_keypad_) {
-    ImGui::OpenPopup(keypad_.popup_id().c_str());
-    open_keypad_ = false;
-  }
-  if (keypad_target_) {
-    if (const auto value = keypad_.draw()) {
-      *keypad_target_ = *value;
-      keypad_target_ = nullptr;
-    } else if (!ImGui::IsPopupOpen(keypad_.popup_id().c_str())) {
-      keypad_target_ = nullptr;
-    }
-  }
+  numbers_.draw();
   ImGui::EndPopup();
   return made;
 }

@@ -6,7 +6,7 @@
 #include <vector>
 
 #include "app/gui/fitted_modal.hpp"
-#include "app/gui/numeric_keypad.hpp"
+#include "app/gui/keypad_field.hpp"
 #include "app/model/new_section.hpp"
 #include "storage/project_file.hpp"
 #include "storage/register_records.hpp"
@@ -22,17 +22,15 @@ class NewSectionDialog {
 
  private:
   void draw_body();
-  // A number shown as a large button that opens the keypad on it.
-  void keypad_field(const char* label, std::optional<double>& value, const char* probe_name, int decimals);
+  // A number row: its label, then the value as a large button that opens the keypad on it.
+  void number_row(const char* label, std::optional<double>& value, const char* probe_name, int decimals);
 
   bool open_ = false;
   app::NewSection spec_;
   std::vector<storage::SpanRecord> spans_;
   char label_[48] = {};
   std::string error_;
-  NumericKeypad keypad_;
-  std::optional<double>* keypad_target_ = nullptr;
-  bool open_keypad_ = false;
+  KeypadField numbers_;
   FittedModal modal_;  // within the display at any text size, Create and Cancel pinned
 };
 

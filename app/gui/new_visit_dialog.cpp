@@ -7,6 +7,7 @@
 
 #include "app/gui/fitted_modal.hpp"
 #include "app/gui/flow_layout.hpp"
+#include "app/gui/form_footer.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
 
@@ -65,32 +66,15 @@ std::optional<std::string> NewVisitDialog::draw(storage::Project* project) {
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Air temperature (C)");
   ImGui::SameLine();
-  char temp[32] = "tap to enter";
-  if (visit_.details.air_temperature_c) std::snprintf(temp, sizeof temp, "%.1f", *visit_.details.air_temperature_c);
-  if (ImGui::Button(temp)) {
-    keypad_.begin_text("Air temperature (C)", visit_.details.air_temperature_c ? std::string(temp) : "");
-    open_keypad_ = true;
-  }
-  probe("new-visit:temperature");
+  temperature_.button(visit_.details.air_temperature_c, "new-visit:temperature", 0, "Air temperature (C)", 1);
 
   ImGui::TextUnformatted("Parts not inspected");
   ImGui::SetNextItemWidth(field);
   ImGui::InputText("##not-inspected", not_inspected_, sizeof not_inspected_);
   probe("new-visit:not-inspected");
 
-  modal_.footer();
-  if (!error_.empty()) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(palette().residual_below));
-    ImGui::TextWrapped("Not made: %s", error_.c_str());
-    ImGui::PopStyleColor();
-  }
-  const bool create = ImGui::Button("Start visit");
-  probe("new-visit:create");
-  same_line_if_fits("Cancel");
-  const bool cancel = ImGui::Button("Cancel");
-  probe("new-visit:cancel");
-  modal_.end_footer();
-  if (create && project) {
+  const FormAnswer answer = create_or_cancel_footer(modal_, error_, "Start visit", "new-visit");
+  if (answer == FormAnswer::create && project) {
     visit_.date = date_;
     visit_.details.inspector = inspector_;
     visit_.details.weather = weather_;
@@ -102,23 +86,11 @@ std::optional<std::string> NewVisitDialog::draw(storage::Project* project) {
     } catch (const std::exception& e) {
       error_ = e.what();
     }
-  } else if (cancel) {
+  } else if (answer == FormAnswer::cancel) {
     ImGui::CloseCurrentPopup();
   }
 
-  if (open_keypad_) {
-    ImGui::OpenPopup(keypad_.popup_id().c_str());
-    open_keypad_ = false;
-    keypad_live_ = true;
-  }
-  if (keypad_live_) {
-    if (const auto v = keypad_.draw()) {
-      visit_.details.air_temperature_c = *v;
-      keypad_live_ = false;
-    } else if (!ImGui::IsPopupOpen(keypad_.popup_id().c_str())) {
-      keypad_live_ = false;
-    }
-  }
+  temperature_.draw();  // over the form, once tapped
   ImGui::EndPopup();
   return made;
 }

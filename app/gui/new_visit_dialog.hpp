@@ -5,7 +5,7 @@
 #include <string>
 
 #include "app/gui/fitted_modal.hpp"
-#include "app/gui/numeric_keypad.hpp"
+#include "app/gui/keypad_field.hpp"
 #include "app/model/new_visit.hpp"
 
 namespace soffit::gui {
@@ -23,8 +23,7 @@ class NewVisitDialog {
   app::NewVisit visit_;
   char date_[16] = {}, inspector_[80] = {}, weather_[120] = {}, not_inspected_[200] = {};
   std::string error_;
-  NumericKeypad keypad_;
-  bool open_keypad_ = false, keypad_live_ = false;
+  KeypadField temperature_;
 };
 
 }  // namespace soffit::gui

@@ -4,12 +4,12 @@
 
 #include <algorithm>
 #include <chrono>
-#include <ctime>
 #include <filesystem>
 #include <fstream>
 
 #include "app/gui/flow_layout.hpp"
 #include "app/gui/touch_scroll.hpp"
+#include "app/model/local_time.hpp"
 #include "app/model/section_store.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
@@ -31,19 +31,10 @@ bool big_button(const char* label, const std::string& probe_name) {
   return pressed;
 }
 
-std::string clock_now() {
-  const std::time_t t = std::time(nullptr);
-  std::tm local{};
-  localtime_r(&t, &local);
-  char buf[16];
-  std::strftime(buf, sizeof buf, "%H:%M", &local);
-  return buf;
-}
-
 // Where a change went, in the words of the standards: the project file, by name.
 std::string saved_to(const std::string& project_path, const std::string& what) {
   return what + ". Saved to the project file " + std::filesystem::path(project_path).filename().string() + " at " +
-         clock_now() + ".";
+         app::clock_hhmm() + ".";
 }
 
 // Lists leave room under them for their paging buttons, but never shrink to nothing.
@@ -165,13 +156,14 @@ void ProjectScreens::reload_sections(const storage::InspectionRecord& visit) {
   section_ids_.clear();
   for (const storage::SectionRecord& s : visit.sections) {
     try {
-      sheets.emplace_back(visit.date + "  " + s.span_label + " " + s.label, session_.section_sheet(s.id));
+      sheets.emplace_back(s.span_label + " " + s.label, session_.section_sheet(s.id));
       section_ids_.push_back(s.id);
     } catch (const std::exception& e) {
       message_ = e.what();
     }
   }
   sections.load_sheets(std::move(sheets));
+  sections.set_heading("Visit " + visit.date + " (" + visit.status + ")");
   // Exclusions go to the project as they are made (an issued visit refuses them, and says so).
   sections.set_exclusion_store([this](size_t section, size_t reading, const std::string& reason) {
     session_.set_reading_exclusion(section_ids_.at(section), reading, reason);

@@ -3,6 +3,7 @@
 #include <imgui.h>
 #include <imgui_stdlib.h>
 
+#include <algorithm>
 #include <cfloat>
 #include <cmath>
 #include <cstdio>
@@ -203,10 +204,12 @@ std::optional<app::RowEdit> ReadingsGrid::draw(const SurveySheet& sheet, bool ty
     ImGui::TableSetupColumn("#", ImGuiTableColumnFlags_WidthFixed, em * 1.8f);
     for (size_t col : cols) {
       const SheetColumn& sc = sheet.columns[col];
-      const float width = app::is_numeric_column(sc) ? em * 4.5f
+      const float wanted = app::is_numeric_column(sc) ? em * 4.5f
                            : sc.quantity == "id"        ? em * 2.5f
                            : sc.quantity == "note"      ? em * 6.5f
                                                         : em * 4.5f;
+      // Never narrower than its heading: "station (m)" is read, not guessed.
+      const float width = std::max(wanted, ImGui::CalcTextSize(column_title(sc).c_str()).x + em * 0.4f);
       // "offset (mm)" rather than the sheet's "offset_mm": the same column, in words a person reads.
       ImGui::TableSetupColumn(column_title(sc).c_str(), ImGuiTableColumnFlags_WidthFixed, width);
     }
@@ -214,7 +217,8 @@ std::optional<app::RowEdit> ReadingsGrid::draw(const SurveySheet& sheet, bool ty
       ImGui::TableSetupColumn("x (m)", ImGuiTableColumnFlags_WidthFixed, em * 3.5f);
       ImGui::TableSetupColumn("z (m)", ImGuiTableColumnFlags_WidthFixed, em * 3.5f);
     }
-    ImGui::TableSetupColumn("off curve (mm)", ImGuiTableColumnFlags_WidthFixed, em * 6.0f);
+    ImGui::TableSetupColumn("off curve (mm)", ImGuiTableColumnFlags_WidthFixed,
+                            ImGui::CalcTextSize("off curve (mm)").x + em * 0.4f);
     // Used readings show the button that excludes them; excluded ones their reason and the way back.
     ImGui::TableSetupColumn("use in fit", ImGuiTableColumnFlags_WidthStretch);
     ImGui::TableHeadersRow();

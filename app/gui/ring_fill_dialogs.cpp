@@ -74,12 +74,8 @@ void field_label(const char* label) {
   ImGui::SameLine(ImGui::GetFontSize() * 11.0f);
 }
 
-// A number shown on a button that opens the keypad; true when tapped.
-bool number_button(const std::string& shown, const std::string& probe_name) {
-  const bool tapped = ImGui::Button((shown + "###" + probe_name).c_str(), ImVec2(ImGui::GetFontSize() * 8.0f, 0));
-  probe(probe_name);
-  return tapped;
-}
+// Number fields are all this wide, so that their values line up.
+float number_width() { return ImGui::GetFontSize() * 8.0f; }
 
 void hint(const char* text) {
   ImGui::SameLine();
@@ -140,6 +136,33 @@ std::string without_path(const std::string& message) {
   return at == std::string::npos ? message : message.substr(at + 9);
 }
 
+// Opens the form when asked and draws it while open: `body` scrolls above the
+// footer; Save stores what `gather` returns (nothing when a field is refused)
+// and closes when `save` kept it, Cancel closes. Returns whether it is shown.
+template <class Fields, class Body, class Gather>
+bool run_form(bool& open, const char* title, const char* popup, const char* save_label, const std::string& prefix,
+              std::string& error, Body body, Gather gather, const SaveFields<Fields>& save) {
+  if (open) {
+    ImGui::OpenPopup(popup);
+    open = false;
+  }
+  if (!begin_form(title, popup)) return false;
+  ImGui::BeginChild(("##" + prefix + "-body").c_str(), ImVec2(0, -footer_height(error)));
+  body();
+  ImGui::EndChild();
+  const int pressed = footer(error, save_label, prefix);
+  if (pressed == 1) {
+    if (const std::optional<Fields> f = gather()) {
+      error = without_path(save(*f));
+      if (error.empty()) ImGui::CloseCurrentPopup();
+    }
+  } else if (pressed == -1) {
+    ImGui::CloseCurrentPopup();
+  }
+  ImGui::EndPopup();
+  return true;
+}
+
 }  // namespace
 
 // ---------------------------------------------------------------- ring count
@@ -190,45 +213,20 @@ const SpanChoice* RingCountDialog::span() const {
   return nullptr;
 }
 
-void RingCountDialog::apply(double v) {
-  char buf[160];
-  switch (target_) {
-    case Target::rings:
-      if (v != std::floor(v) || v < 1 || v > 20) {
-        std::snprintf(buf, sizeof buf, "Number of rings: %g was not kept; enter a whole number from 1 to 20.", v);
-        error_ = buf;
-      } else {
-        rings_ = static_cast<int>(v);
-        error_.clear();
-      }
-      break;
-    case Target::ring_depth: ring_depth_mm_ = v; error_.clear(); break;
-    case Target::taped: taped_mm_ = v; error_.clear(); break;
-    case Target::none: break;
+void RingCountDialog::keep_rings(double typed) {
+  if (typed != std::floor(typed) || typed < 1 || typed > 20) {
+    char buf[160];
+    std::snprintf(buf, sizeof buf, "Number of rings: %g was not kept; enter a whole number from 1 to 20.", typed);
+    error_ = buf;
+  } else {
+    rings_ = static_cast<int>(typed);
   }
-  target_ = Target::none;
 }
 
 void RingCountDialog::draw(const SaveFields<storage::RingCountFields>& save) {
-  if (open_) {
-    ImGui::OpenPopup(kRingPopup);
-    open_ = false;
-  }
-  shown_ = begin_form(editing_ ? "Edit ring count" : "Add ring count", kRingPopup);
-  if (!shown_) return;
-  ImGui::BeginChild("##ring-body", ImVec2(0, -footer_height(error_)));
-  draw_body();
-  ImGui::EndChild();
-  const int pressed = footer(error_, editing_ ? "Save changes" : "Save count", "rc");
-  if (pressed == 1) {
-    if (const auto f = gathered()) {
-      error_ = without_path(save(*f));
-      if (error_.empty()) ImGui::CloseCurrentPopup();
-    }
-  } else if (pressed == -1) {
-    ImGui::CloseCurrentPopup();
-  }
-  ImGui::EndPopup();
+  shown_ = run_form(open_, editing_ ? "Edit ring count" : "Add ring count", kRingPopup,
+                    editing_ ? "Save changes" : "Save count", "rc", error_, [&] { draw_body(); },
+                    [&] { return gathered(); }, save);
 }
 
 void RingCountDialog::draw_body() {
@@ -276,11 +274,8 @@ void RingCountDialog::draw_body() {
   if (ImGui::Button("-##rings", ImVec2(square, 0)) && rings_ > 1) rings_--;
   probe("rc:rings-");
   ImGui::SameLine();
-  if (number_button(rings_ > 0 ? std::to_string(rings_) : std::string("tap to enter"), "rc:rings")) {
-    target_ = Target::rings;
-    keypad_.begin_text("Rings counted", rings_ > 0 ? std::to_string(rings_) : "");
-    ImGui::OpenPopup(keypad_.popup_id().c_str());
-  }
+  numbers_.button(rings_typed_, rings_ > 0 ? std::to_string(rings_) : std::string("tap to enter"), "rc:rings",
+                  number_width(), "Rings counted", rings_ > 0 ? std::to_string(rings_) : "");
   ImGui::SameLine();
   if (ImGui::Button("+##rings", ImVec2(square, 0)) && rings_ < 20) rings_ = std::max(rings_ + 1, 1);
   probe("rc:rings+");
@@ -288,11 +283,9 @@ void RingCountDialog::draw_body() {
   const SpanChoice* s = span();
   const bool joint_known = s && s->details.joint_thickness_mm;
   field_label(joint_known || !s ? "Brick + joint:" : "Brick depth:");
-  if (number_button(ring_depth_mm_ ? number(*ring_depth_mm_, 0) + " mm" : "not entered", "rc:unit")) {
-    target_ = Target::ring_depth;
-    keypad_.begin_text(joint_known ? "Brick + joint (mm)" : "Brick depth (mm)", keypad_text(ring_depth_mm_, 1));
-    ImGui::OpenPopup(keypad_.popup_id().c_str());
-  }
+  numbers_.button(ring_depth_mm_, ring_depth_mm_ ? number(*ring_depth_mm_, 0) + " mm" : "not entered", "rc:unit",
+                  number_width(), joint_known ? "Brick + joint (mm)" : "Brick depth (mm)",
+                  keypad_text(ring_depth_mm_, 1));
   char why[160];
   if (!s)
     std::snprintf(why, sizeof why, "one ring, mm; choose the span first (its joint is taken off)");
@@ -305,11 +298,8 @@ void RingCountDialog::draw_body() {
   hint(why);
 
   field_label("Face depth taped:");
-  if (number_button(taped_mm_ ? number(*taped_mm_, 0) + " mm" : "not measured", "rc:taped")) {
-    target_ = Target::taped;
-    keypad_.begin_text("Face depth taped (mm)", keypad_text(taped_mm_, 1));
-    ImGui::OpenPopup(keypad_.popup_id().c_str());
-  }
+  numbers_.button(taped_mm_, taped_mm_ ? number(*taped_mm_, 0) + " mm" : "not measured", "rc:taped", number_width(),
+                  "Face depth taped (mm)", keypad_text(taped_mm_, 1));
   ImGui::SameLine();
   ImGui::BeginDisabled(!taped_mm_);
   if (ImGui::Button("Not measured##taped")) taped_mm_.reset();
@@ -348,7 +338,11 @@ void RingCountDialog::draw_body() {
   ImGui::InputTextMultiline("##notes", notes_, sizeof notes_, ImVec2(-1, f * 3.0f));
   probe("rc:notes");
 
-  if (const auto v = keypad_.draw()) apply(*v);
+  if (numbers_.draw()) {
+    error_.clear();
+    if (rings_typed_) keep_rings(*rings_typed_);
+    rings_typed_.reset();
+  }
 }
 
 std::optional<storage::RingCountFields> RingCountDialog::gathered() {
@@ -407,39 +401,10 @@ void FillDepthDialog::open_edit(const std::vector<SpanChoice>& spans, const stor
   open_ = true;
 }
 
-void FillDepthDialog::apply(double v) {
-  switch (target_) {
-    case Target::chainage: chainage_m_ = v; break;
-    case Target::offset: offset_m_ = v; break;
-    case Target::depth: depth_m_ = v; break;
-    case Target::uncertainty: uncertainty_m_ = v; break;
-    case Target::surfacing: surfacing_m_ = v; break;
-    case Target::none: break;
-  }
-  error_.clear();
-  target_ = Target::none;
-}
-
 void FillDepthDialog::draw(const SaveFields<storage::FillDepthFields>& save) {
-  if (open_) {
-    ImGui::OpenPopup(kFillPopup);
-    open_ = false;
-  }
-  shown_ = begin_form(editing_ ? "Edit fill depth" : "Add fill depth", kFillPopup);
-  if (!shown_) return;
-  ImGui::BeginChild("##fill-body", ImVec2(0, -footer_height(error_)));
-  draw_body();
-  ImGui::EndChild();
-  const int pressed = footer(error_, editing_ ? "Save changes" : "Save depth", "fd");
-  if (pressed == 1) {
-    if (const auto f = gathered()) {
-      error_ = without_path(save(*f));
-      if (error_.empty()) ImGui::CloseCurrentPopup();
-    }
-  } else if (pressed == -1) {
-    ImGui::CloseCurrentPopup();
-  }
-  ImGui::EndPopup();
+  shown_ = run_form(open_, editing_ ? "Edit fill depth" : "Add fill depth", kFillPopup,
+                    editing_ ? "Save changes" : "Save depth", "fd", error_, [&] { draw_body(); },
+                    [&] { return gathered(); }, save);
 }
 
 void FillDepthDialog::draw_body() {
@@ -451,14 +416,11 @@ void FillDepthDialog::draw_body() {
     }
   });
   // One row per number: the value on a button that opens the keypad, and what it is measured from.
-  const auto row = [&](const char* label, const char* probe_name, std::optional<double>& value, Target target,
+  const auto row = [&](const char* label, const char* probe_name, std::optional<double>& value,
                        const char* keypad_title, const char* missing, bool optional_field, const char* what) {
     field_label(label);
-    if (number_button(value ? number(*value, 3) + " m" : std::string(missing), probe_name)) {
-      target_ = target;
-      keypad_.begin_text(keypad_title, keypad_text(value, 3));
-      ImGui::OpenPopup(keypad_.popup_id().c_str());
-    }
+    numbers_.button(value, value ? number(*value, 3) + " m" : std::string(missing), probe_name, number_width(),
+                    keypad_title, keypad_text(value, 3));
     if (optional_field) {
       ImGui::SameLine();
       ImGui::BeginDisabled(!value);
@@ -468,9 +430,9 @@ void FillDepthDialog::draw_body() {
     }
     hint(what);
   };
-  row("Chainage:", "fd:chainage", chainage_m_, Target::chainage, "Chainage along the span (m)", "tap to enter", false,
+  row("Chainage:", "fd:chainage", chainage_m_, "Chainage along the span (m)", "tap to enter", false,
       "x along the span from its W springing");
-  row("Offset across:", "fd:offset", offset_m_, Target::offset, "Offset across (m)", "not recorded", true,
+  row("Offset across:", "fd:offset", offset_m_, "Offset across (m)", "not recorded", true,
       "y from the US face");
   choice_row("Method:", [&] {
     for (const auto& [key, label] : kMethods) {
@@ -478,17 +440,17 @@ void FillDepthDialog::draw_body() {
       if (choice(label, method_ == key, std::string("fd:method:") + key)) method_ = key;
     }
   });
-  row("Depth:", "fd:depth", depth_m_, Target::depth, "Fill depth (m)", "tap to enter", false,
+  row("Depth:", "fd:depth", depth_m_, "Fill depth (m)", "tap to enter", false,
       "road surface to extrados, surfacing included");
-  row("Uncertainty:", "fd:uncertainty", uncertainty_m_, Target::uncertainty, "Uncertainty (m)", "not recorded", true,
+  row("Uncertainty:", "fd:uncertainty", uncertainty_m_, "Uncertainty (m)", "not recorded", true,
       "+/- m");
-  row("Surfacing:", "fd:surfacing", surfacing_m_, Target::surfacing, "Surfacing (m)", "not recorded", true,
+  row("Surfacing:", "fd:surfacing", surfacing_m_, "Surfacing (m)", "not recorded", true,
       "bound layers, part of the depth");
   ImGui::TextUnformatted("Notes (optional):");
   ImGui::InputTextMultiline("##notes", notes_, sizeof notes_, ImVec2(-1, f * 3.0f));
   probe("fd:notes");
 
-  if (const auto v = keypad_.draw()) apply(*v);
+  if (numbers_.draw()) error_.clear();
 }
 
 std::optional<storage::FillDepthFields> FillDepthDialog::gathered() {

@@ -10,7 +10,7 @@
 #include <string>
 #include <vector>
 
-#include "app/gui/numeric_keypad.hpp"
+#include "app/gui/keypad_field.hpp"
 #include "storage/survey_records.hpp"
 
 namespace soffit::gui {
@@ -35,10 +35,10 @@ class RingCountDialog {
   bool is_open() const { return open_ || shown_; }
 
  private:
-  enum class Target { none, rings, ring_depth, taped };
   const SpanChoice* span() const;
   void draw_body();
-  void apply(double v);
+  // Keeps a number of rings typed on the keypad, or says why not.
+  void keep_rings(double typed);
   std::optional<storage::RingCountFields> gathered();
 
   std::vector<SpanChoice> spans_;
@@ -47,9 +47,9 @@ class RingCountDialog {
   std::string span_id_, face_, position_, confidence_;
   int rings_ = 0;  // 0: not entered
   std::optional<double> ring_depth_mm_, taped_mm_;
+  std::optional<double> rings_typed_;  // from the keypad, until checked into rings_
   char face_text_[32] = {}, position_text_[48] = {}, basis_[160] = {}, notes_[512] = {};
-  NumericKeypad keypad_;
-  Target target_ = Target::none;
+  KeypadField numbers_;
   std::string error_;
 };
 
@@ -61,9 +61,7 @@ class FillDepthDialog {
   bool is_open() const { return open_ || shown_; }
 
  private:
-  enum class Target { none, chainage, offset, depth, uncertainty, surfacing };
   void draw_body();
-  void apply(double v);
   std::optional<storage::FillDepthFields> gathered();
 
   std::vector<SpanChoice> spans_;
@@ -72,8 +70,7 @@ class FillDepthDialog {
   std::string span_id_, method_;
   std::optional<double> chainage_m_, offset_m_, depth_m_, uncertainty_m_, surfacing_m_;
   char notes_[512] = {};
-  NumericKeypad keypad_;
-  Target target_ = Target::none;
+  KeypadField numbers_;
   std::string error_;
 };
 

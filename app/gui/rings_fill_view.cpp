@@ -4,7 +4,6 @@
 
 #include <algorithm>
 #include <cstdio>
-#include <ctime>
 #include <exception>
 #include <filesystem>
 #include <initializer_list>
@@ -13,6 +12,7 @@
 #include "app/gui/flow_layout.hpp"
 #include "app/gui/ui_probe.hpp"
 #include "app/gui/ui_theme.hpp"
+#include "app/model/local_time.hpp"
 #include "app/model/ring_fill_records.hpp"
 #include "exports/fit_report_json.hpp"
 
@@ -124,13 +124,6 @@ bool row_choice(const std::string& text, const std::string& id, bool chosen) {
   return ImGui::Selectable((text + "##" + id).c_str(), chosen,
                            ImGuiSelectableFlags_SpanAllColumns | ImGuiSelectableFlags_AllowItemOverlap,
                            ImVec2(0, ImGui::GetFrameHeight() - ImGui::GetStyle().CellPadding.y * 2));
-}
-
-std::string clock_now() {
-  const std::time_t t = std::time(nullptr);
-  char buf[16];
-  std::strftime(buf, sizeof buf, "%H:%M", std::localtime(&t));
-  return buf;
 }
 
 void coloured_text(unsigned int colour, const std::string& text) {
@@ -288,7 +281,7 @@ std::string RingsFillView::change(const std::string& done, const std::function<v
     return e.what();  // the edit was one transaction: nothing of it was kept
   }
   message_.clear();
-  saved_ = done + ". Saved to the project file " + data_.data().project_file_name + " at " + clock_now() + ".";
+  saved_ = done + ". Saved to the project file " + data_.data().project_file_name + " at " + app::clock_hhmm() + ".";
   reload();
   return "";
 }
@@ -299,7 +292,7 @@ void RingsFillView::undo_or_redo(bool undo) {
     if (!(undo ? data_.undo() : data_.redo())) return;
     message_.clear();
     saved_ = std::string(undo ? "Undone: " : "Redone: ") + step + ". Saved to the project file " +
-             data_.data().project_file_name + " at " + clock_now() + ".";
+             data_.data().project_file_name + " at " + app::clock_hhmm() + ".";
   } catch (const std::exception& e) {
     message_ = e.what();  // the journal refused: the file is as it was
   }

@@ -46,6 +46,7 @@ void SectionWorkspace::load_sheets(std::vector<std::pair<std::string, SurveyShee
   pending_ = {};
   refit_wanted_ = false;
   locked_.clear();
+  heading_ = "Sections";
   entries_.clear();
   analysis_.reset();
   for (auto& [label, sheet] : sheets) {
@@ -229,7 +230,7 @@ void SectionWorkspace::draw_readings_table() {
 }
 
 void SectionWorkspace::draw_sheet_list() {
-  ImGui::TextUnformatted("Sections");
+  ImGui::TextWrapped("%s", heading_.c_str());
   for (size_t i = 0; i < entries_.size(); ++i) {
     const bool chosen = i == selected_;
     const bool pressed = ImGui::Selectable(entries_[i].label.c_str(), chosen, 0,
@@ -246,7 +247,7 @@ void SectionWorkspace::draw_results() {
     return;
   }
   const Entry& e = entries_[selected_];
-  ImGui::Text("%s", e.label.c_str());
+  ImGui::Text("%s  %s", e.label.c_str(), heading_ == "Sections" ? "" : heading_.c_str());
   if (!e.error.empty()) {
     ImGui::TextWrapped("This sheet cannot be read: %s", e.error.c_str());
     return;
@@ -313,7 +314,8 @@ void SectionWorkspace::draw_results() {
 }
 
 void SectionWorkspace::draw() {
-  const float list_width = ImGui::GetFontSize() * 11;  // the grid needs the width more
+  // The grid needs the width more: the list takes at most a fifth of it.
+  const float list_width = std::min(ImGui::GetFontSize() * 8, ImGui::GetContentRegionAvail().x * 0.2f);
   const float paging_row = ImGui::GetFrameHeightWithSpacing();
   ImGui::BeginChild("sheets", ImVec2(list_width, 0), true);
   draw_sheet_list();

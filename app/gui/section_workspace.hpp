@@ -37,6 +37,8 @@ class SectionWorkspace {
   // go through the exclusion store when there is one (a scan has 10⁵ rows).
   using RowsStore = std::function<void(size_t section, const SurveySheet& sheet, const std::string& label)>;
   void set_rows_store(RowsStore store) { rows_store_ = std::move(store); }
+  // What the sections are of (the visit), shown above them and their results.
+  void set_heading(std::string heading) { heading_ = std::move(heading); }
   // Why nothing shown may change (an issued visit); empty: edits allowed.
   void set_locked(std::string why) { locked_ = std::move(why); }
   void select(size_t index);
@@ -101,6 +103,7 @@ class SectionWorkspace {
   std::string save_state_;  // shown beside Undo/Redo: where the last change went
   std::string message_;     // a typed value refused, and why
   std::string locked_;      // why the sections shown are read-only
+  std::string heading_ = "Sections";
 };
 
 }  // namespace soffit::gui

@@ -2,7 +2,6 @@
 
 #include <algorithm>
 #include <cstdio>
-#include <ctime>
 
 namespace soffit::app {
 
@@ -35,15 +34,6 @@ std::vector<size_t> filter_register(const std::vector<storage::StructureSummary>
     return x.ref < y.ref;
   });
   return out;
-}
-
-std::string today_iso() {
-  const std::time_t now = std::time(nullptr);
-  std::tm local{};
-  localtime_r(&now, &local);
-  char buf[16];
-  std::strftime(buf, sizeof buf, "%Y-%m-%d", &local);
-  return buf;
 }
 
 }  // namespace soffit::app

@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "app/model/local_time.hpp"  // today_iso(): the `today` the filters take
 #include "storage/register_records.hpp"
 
 namespace soffit::app {
@@ -26,8 +27,5 @@ bool due_for_inspection(const std::string& latest_visit, const std::string& toda
 // Indices into `rows` that pass the filter, in the chosen order.
 std::vector<size_t> filter_register(const std::vector<storage::StructureSummary>& rows, const RegisterFilter& filter,
                                     const std::string& today);
-
-// Today's date as YYYY-MM-DD (local time), for the filters.
-std::string today_iso();
 
 }  // namespace soffit::app

@@ -2,7 +2,7 @@
 
 #include <cmath>
 
-#include "geometry/analysis/profile_analysis.hpp"
+#include "app/model/seeded_profile.hpp"
 
 namespace soffit::app {
 
@@ -13,10 +13,7 @@ struct Fitted {
 };
 
 Fitted fit_of(const SurveySheet& sheet) {
-  ProfileRequest request;
-  request.uncertainty.monte_carlo_draws = 1000;
-  request.uncertainty.seed = 1;
-  const ProfileAnalysis a = analyse_profile(sheet.readings, request);
+  const ProfileAnalysis a = seeded_profile(sheet.readings, 1000);
   if (!a.ok()) return {};
   return {a.uncertainty.geometry[1], a.uncertainty.geometry[0]};  // rise_m, span_m (derived.hpp order)
 }

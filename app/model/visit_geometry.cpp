@@ -1,6 +1,6 @@
 #include "app/model/visit_geometry.hpp"
 
-#include "geometry/analysis/profile_analysis.hpp"
+#include "app/model/seeded_profile.hpp"
 #include "geometry/shapes/shape_family.hpp"
 
 namespace soffit::app {
@@ -11,10 +11,8 @@ std::vector<SectionGeometry> summarise_geometry(const std::vector<LabelledSheet>
     SectionGeometry g;
     g.span = s.span;
     g.section = s.section;
-    ProfileRequest request;
-    request.uncertainty.monte_carlo_draws = monte_carlo_draws;
-    request.uncertainty.seed = 1;  // the same summary every time the screen opens
-    const ProfileAnalysis a = analyse_profile(s.sheet.readings, request);
+    // Seeded: the same summary every time the screen opens.
+    const ProfileAnalysis a = seeded_profile(s.sheet.readings, monte_carlo_draws);
     if (a.ok()) {
       g.shape = std::string(a.fit->family->name());
       g.span_m = a.uncertainty.geometry[0];  // derived.hpp order: span, rise, …

@@ -11,7 +11,6 @@
 #include <chrono>
 #include <cmath>
 #include <filesystem>
-#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -62,14 +61,42 @@ void enter_width(test::HeadlessUi& ui, const std::string& digits) {
   REQUIRE(ui.tap("key:ok"));
 }
 
-}  // namespace
-
-TEST_CASE("the defects view shows the 2025 visit's defects on the unrolled barrel") {
+// The defects view open on the demo's latest visit (PI-2025, FIELD.md §10.1), drawn headless once.
+struct DefectsOnDemo {
   DemoProject demo;
   gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
+  test::HeadlessUi ui{[this] { view.draw(); }};
+  std::string visit;  // the id of the visit on show
+
+  DefectsOnDemo() {
+    view.open(*demo.project, kDemoRef);
+    ui.forget_controls();  // "drawn" speaks of this view only
+    ui.frame();
+    visit = view.data().data().inspection.id;
+  }
+
+  // Shows S2 and taps D05, the new missing brick there at s 0.55, y 3.40 (FIELD.md §10.4).
+  void tap_d05() {
+    REQUIRE(ui.tap("span:S2"));
+    ui.tap_at(*view.screen_point(0.55, 3.40));
+  }
+
+  // Chooses the type and severity of the mark just made and confirms it; false if a tap found no control.
+  bool place(const std::string& type, int severity) {
+    return ui.tap("type:" + type) && ui.tap("severity:" + std::to_string(severity)) && ui.tap("confirm defect");
+  }
+
+  // The defect `ref` as the view holds it, or null.
+  const app::DefectOnRecord* shown(const std::string& ref) const {
+    for (const auto& d : view.data().defects())
+      if (d.defect.fields.ref == ref) return &d;
+    return nullptr;
+  }
+};
+
+}  // namespace
+
+TEST_CASE_FIXTURE(DefectsOnDemo, "the defects view shows the 2025 visit's defects on the unrolled barrel") {
   REQUIRE(view.data().loaded());
   CHECK(view.data().data().inspection.date == "2025-05-21");  // PI-2025, FIELD.md §10.1
   // FIELD.md §10.4: D01–D10 all exist in 2025 (D05 and D09 new).
@@ -93,13 +120,9 @@ TEST_CASE("the defects view shows the 2025 visit's defects on the unrolled barre
   CHECK(ui.drawn("undo"));
 }
 
-TEST_CASE("tap the barrel, choose type and severity, confirm: one more defect - Undo removes it - Redo restores it") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo,
+                  "tap the barrel, choose type and severity, confirm: one more defect - Undo removes it - "
+                  "Redo restores it") {
   const size_t before = demo.defects_in_db(visit);
   REQUIRE(before == 10);
 
@@ -107,16 +130,10 @@ TEST_CASE("tap the barrel, choose type and severity, confirm: one more defect - 
   const auto at = view.screen_point(2.50, 1.50);
   REQUIRE(at);
   ui.tap_at(*at);
-  REQUIRE(ui.tap("type:spalling"));
-  REQUIRE(ui.tap("severity:3"));
-  REQUIRE(ui.tap("confirm defect"));
+  REQUIRE(place("spalling", 3));
   CHECK(view.message().empty());
   CHECK(demo.defects_in_db(visit) == before + 1);
-  const auto* added = [&]() -> const app::DefectOnRecord* {
-    for (const auto& d : view.data().defects())
-      if (d.defect.fields.ref == "D11") return &d;
-    return nullptr;
-  }();
+  const app::DefectOnRecord* added = shown("D11");
   REQUIRE(added);
   CHECK(added->defect.fields.defect_type == "spalling");
   CHECK(added->defect.fields.severity == 3);
@@ -133,13 +150,7 @@ TEST_CASE("tap the barrel, choose type and severity, confirm: one more defect - 
   CHECK(demo.defects_in_db(visit) == before + 1);
 }
 
-TEST_CASE("no defect is placed without a type and a severity, nor when cancelled") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo, "no defect is placed without a type and a severity, nor when cancelled") {
   ui.tap_at(*view.screen_point(2.50, 1.50));
   REQUIRE(ui.tap("type:seepage"));
   REQUIRE(ui.tap("confirm defect"));  // disabled: no severity yet
@@ -148,16 +159,9 @@ TEST_CASE("no defect is placed without a type and a severity, nor when cancelled
   CHECK(demo.defects_in_db(visit) == 10);
 }
 
-TEST_CASE("tapping a mark selects it - Delete asks first, then removes it - Undo brings it back") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
-  REQUIRE(ui.tap("span:S2"));
-  // D05, the new missing brick in S2 at s 0.55, y 3.40 (FIELD.md §10.4).
-  ui.tap_at(*view.screen_point(0.55, 3.40));
+TEST_CASE_FIXTURE(DefectsOnDemo,
+                  "tapping a mark selects it - Delete asks first, then removes it - Undo brings it back") {
+  tap_d05();
   REQUIRE(ui.tap("delete"));
   REQUIRE(ui.tap("keep defect"));  // the confirmation is a real choice
   CHECK(demo.defects_in_db(visit) == 10);
@@ -169,27 +173,22 @@ TEST_CASE("tapping a mark selects it - Delete asks first, then removes it - Undo
   CHECK(demo.defects_in_db(visit) == 10);
 }
 
-TEST_CASE("drag a crack line on the barrel: type, width and severity saved with its length - it survives reopening - "
-          "Undo removes it") {
-  DemoProject demo;
-  auto view = std::make_unique<gui::DefectsView>();
-  view->open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view->draw(); });
-  ui.frame();
-  const std::string visit = view->data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo,
+                  "drag a crack line on the barrel: type, width and severity saved with its length - it survives "
+                  "reopening - Undo removes it") {
   REQUIRE(ui.tap("mode:line"));
   // S1 barrel, s 1.0–3.0 and y 0.8–2.5: clear of every 2025 mark (FIELD.md §10.4: D01, D02, D06 at
   // y 4.15 and beyond, D10 at s 5–6). A bend in the middle, so the line keeps three points.
-  const ImVec2 a = *view->screen_point(1.0, 0.8), bend = *view->screen_point(2.0, 1.2), b = *view->screen_point(3.0, 2.5);
-  const double drawn_m = (distance(a, bend) + distance(bend, b)) / pixels_per_metre(*view);
+  const ImVec2 a = *view.screen_point(1.0, 0.8), bend = *view.screen_point(2.0, 1.2), b = *view.screen_point(3.0, 2.5);
+  const double drawn_m = (distance(a, bend) + distance(bend, b)) / pixels_per_metre(view);
   test::drag_through(ui, {a, bend, b});
   REQUIRE(ui.tap("type:diagonal_crack"));
   REQUIRE(ui.tap("severity:2"));
   enter_width(ui, "0.8");
   REQUIRE(ui.tap("confirm defect"));
-  CHECK(view->message().empty());
+  CHECK(view.message().empty());
   CHECK(demo.defects_in_db(visit) == 11);
-  view->close();
+  view.close();
 
   const auto saved = reopened_defect(demo, "D11");
   REQUIRE(saved);
@@ -213,19 +212,13 @@ TEST_CASE("drag a crack line on the barrel: type, width and severity saved with 
   CHECK(std::abs(saved->points.back().second - 2.5) < 0.01);
 
   // Undo is kept in the project file: after reopening, Undo in the view still removes the line.
-  view->open(*demo.project, kDemoRef);
+  view.open(*demo.project, kDemoRef);
   ui.frame();
   REQUIRE(ui.tap("undo"));
   CHECK(demo.defects_in_db(visit) == 10);
 }
 
-TEST_CASE("a tiny drag in crack-line mode is a tap: it draws nothing and says how to draw") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo, "a tiny drag in crack-line mode is a tap: it draws nothing and says how to draw") {
   REQUIRE(ui.tap("mode:line"));
   const ImVec2 a = *view.screen_point(2.0, 1.0);
   test::drag_through(ui, {a, ImVec2(a.x + 3, a.y + 2)}, 1.0f);  // 3.6 px: a finger's wobble
@@ -233,14 +226,9 @@ TEST_CASE("a tiny drag in crack-line mode is a tap: it draws nothing and says ho
   CHECK(demo.defects_in_db(visit) == 10);
 }
 
-TEST_CASE("outline an area by dragging round it: area_m2 is the shoelace of the stored ring and the drawn "
-          "rectangle's area") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo,
+                  "outline an area by dragging round it: area_m2 is the shoelace of the stored ring and the drawn "
+                  "rectangle's area") {
   REQUIRE(ui.tap("mode:area"));
   // A 2.0 m x 1.2 m rectangle on the S1 barrel (s 1.0–3.0, y 0.8–2.0), clear of the 2025 marks.
   const std::vector<ImVec2> corners = {*view.screen_point(1.0, 0.8), *view.screen_point(3.0, 0.8),
@@ -248,9 +236,7 @@ TEST_CASE("outline an area by dragging round it: area_m2 is the shoelace of the 
                                        *view.screen_point(1.0, 0.8)};
   const float px = pixels_per_metre(view);
   test::drag_through(ui, corners);
-  REQUIRE(ui.tap("type:spalling"));
-  REQUIRE(ui.tap("severity:3"));
-  REQUIRE(ui.tap("confirm defect"));
+  REQUIRE(place("spalling", 3));
   CHECK(demo.defects_in_db(visit) == 11);
   view.close();
   const auto saved = reopened_defect(demo, "D11");
@@ -271,13 +257,7 @@ TEST_CASE("outline an area by dragging round it: area_m2 is the shoelace of the 
   CHECK_FALSE(saved->width_mm);  // spalling has no width
 }
 
-TEST_CASE("an area by tapping its corners and Close area") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo, "an area by tapping its corners and Close area") {
   REQUIRE(ui.tap("mode:area"));
   // A right triangle with legs 2.0 m (along s) and 1.5 m (across): 1.5 m2 (plane geometry).
   ui.tap_at(*view.screen_point(1.0, 0.5));
@@ -285,28 +265,17 @@ TEST_CASE("an area by tapping its corners and Close area") {
   CHECK_FALSE(ui.tap("confirm defect"));
   ui.tap_at(*view.screen_point(1.0, 2.0));
   REQUIRE(ui.tap("close area"));
-  REQUIRE(ui.tap("type:efflorescence"));
-  REQUIRE(ui.tap("severity:1"));
-  REQUIRE(ui.tap("confirm defect"));
+  REQUIRE(place("efflorescence", 1));
   CHECK(demo.defects_in_db(visit) == 11);
-  const app::DefectOnRecord* added = nullptr;
-  for (const auto& d : view.data().defects())
-    if (d.defect.fields.ref == "D11") added = &d;
+  const app::DefectOnRecord* added = shown("D11");
   REQUIRE(added);
   CHECK(added->defect.fields.points.size() == 3);
   REQUIRE(added->defect.fields.area_m2);
   CHECK(std::abs(*added->defect.fields.area_m2 - 1.5) < 0.02);  // a pixel is under 1 cm here
 }
 
-TEST_CASE("edit a selected defect's severity: one undoable edit") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
-  REQUIRE(ui.tap("span:S2"));
-  ui.tap_at(*view.screen_point(0.55, 3.40));  // D05, FIELD.md §10.4
+TEST_CASE_FIXTURE(DefectsOnDemo, "edit a selected defect's severity: one undoable edit") {
+  tap_d05();
   REQUIRE_FALSE(view.selected_defect().empty());
   REQUIRE(ui.tap("edit"));
   REQUIRE(ui.tap("severity:5"));
@@ -324,13 +293,7 @@ TEST_CASE("edit a selected defect's severity: one undoable edit") {
   CHECK(severity_of_d05() == 3);  // the demo's grade for D05 (demo_project.cpp, invented)
 }
 
-TEST_CASE("the DS spandrel elevation shows D03 and takes a new defect in its frame") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.frame();
-  const std::string visit = view.data().data().inspection.id;
+TEST_CASE_FIXTURE(DefectsOnDemo, "the DS spandrel elevation shows D03 and takes a new defect in its frame") {
   REQUIRE(ui.tap("surface:DS spandrel"));
   CHECK(view.surface() == "DS spandrel");
   // D03 is on the S1 DS spandrel at x 3.2, z 1.0 (FIELD.md §10.4): tapping it selects it.
@@ -350,9 +313,7 @@ TEST_CASE("the DS spandrel elevation shows D03 and takes a new defect in its fra
   // x 1.0, z 2.2: on the wall above the haunch (S1 DS readings, FIELD.md §10.2: the intrados is 0.8 m
   // above the springing at x 0.8, and 1.3 m at x 1.6).
   ui.tap_at(*view.screen_point(1.0, 2.2));
-  REQUIRE(ui.tap("type:spandrel_lean"));
-  REQUIRE(ui.tap("severity:2"));
-  REQUIRE(ui.tap("confirm defect"));
+  REQUIRE(place("spandrel_lean", 2));
   CHECK(demo.defects_in_db(visit) == 11);
   view.close();
   const auto saved = reopened_defect(demo, "D11");
@@ -428,25 +389,19 @@ StoredDefect stored_defect(DemoProject& demo, const std::string& ref) {
 
 }  // namespace
 
-TEST_CASE("Photos of a selected defect and of the visit ask the owner with the visit and defect ids") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
+TEST_CASE_FIXTURE(DefectsOnDemo,
+                  "Photos of a selected defect and of the visit ask the owner with the visit and defect ids") {
   std::vector<PhotosAsked> asked;
   view.set_photos_request([&](const std::string& inspection, const std::optional<std::string>& defect) {
     asked.push_back({inspection, defect});
   });
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.forget_controls();
-  ui.frame();
+  ui.frame();  // drawn again, with the callback
   CHECK(ui.drawn("photos:visit"));
   CHECK_FALSE(ui.drawn("photos:defect"));  // nothing selected yet
   const StoredDefect d05 = stored_defect(demo, "D05");
   // demo_project.cpp links one drawn picture to every defect it writes; the view counts the same links.
   CHECK(d05.photos == 1);
-  REQUIRE(ui.tap("span:S2"));
-  // D05, the new missing brick in S2 at s 0.55, y 3.40 (FIELD.md §10.4).
-  ui.tap_at(*view.screen_point(0.55, 3.40));
+  tap_d05();
   REQUIRE(view.selected_defect() == d05.id);
   for (const auto& d : view.data().defects())
     if (d.id == d05.id) CHECK(d.defect.photo_count == d05.photos);
@@ -463,28 +418,16 @@ TEST_CASE("Photos of a selected defect and of the visit ask the owner with the v
   CHECK(demo.defects_in_db(d05.inspection_id) == 10);
 }
 
-TEST_CASE("without a photos callback the Photos buttons are not drawn") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.forget_controls();
-  ui.frame();
-  REQUIRE(ui.tap("span:S2"));
-  ui.tap_at(*view.screen_point(0.55, 3.40));
+TEST_CASE_FIXTURE(DefectsOnDemo, "without a photos callback the Photos buttons are not drawn") {
+  tap_d05();
   REQUIRE_FALSE(view.selected_defect().empty());
   CHECK(ui.drawn("edit"));  // the selection row is there
   CHECK_FALSE(ui.drawn("photos:defect"));
   CHECK_FALSE(ui.drawn("photos:visit"));
 }
 
-TEST_CASE("the S1 DS spandrel shows a placement note for D03 under the drawing and leaves D03 where it is") {
-  DemoProject demo;
-  gui::DefectsView view;
-  view.open(*demo.project, kDemoRef);
-  test::HeadlessUi ui([&] { view.draw(); });
-  ui.forget_controls();
-  ui.frame();
+TEST_CASE_FIXTURE(DefectsOnDemo,
+                  "the S1 DS spandrel shows a placement note for D03 under the drawing and leaves D03 where it is") {
   CHECK_FALSE(ui.drawn("placement notes"));  // the S1 barrel's defects all lie on it (FIELD.md §10.4)
   REQUIRE(ui.tap("surface:DS spandrel"));
   ui.frame();

@@ -89,6 +89,59 @@ bool frames_until(test::HeadlessUi& ui, F done) {
   return true;
 }
 
+// The viewer drawn headless as the app draws it each frame: what the worker
+// finished is taken first, then the view is drawn.
+struct ViewerUi : test::HeadlessUi {
+  explicit ViewerUi(gui::PhotoViewer& viewer)
+      : HeadlessUi([&viewer] {
+          viewer.poll();
+          viewer.draw();
+        }) {}
+};
+
+// The demo's 2025 visit (FIELD.md §10: PI-2025) open in a viewer with no
+// display (placeholders of each photo's shape), one frame drawn.
+struct Viewing2025 {
+  DemoProject demo;
+  const std::string visit = visit_id(*demo.project, "2025-05-21");
+  gui::PhotoViewer viewer;
+  ViewerUi ui{viewer};
+
+  Viewing2025() {
+    viewer.open(*demo.project, visit);
+    ui.frame();
+  }
+};
+
+// Closes the demo's project file and opens it again from disk: what is then read was committed.
+void reopen(DemoProject& demo) {
+  const std::string path = demo.project->path();
+  demo.project.reset();
+  demo.project.emplace(storage::Project::open(path, "test"));
+}
+
+// A flat grey w x h PNG of the test's own beside the demo project (add_photo takes JPEG or PNG); its path.
+std::string grey_png(const DemoProject& demo, const std::string& name, int w, int h, uint8_t grey) {
+  const std::vector<uint8_t> px(static_cast<size_t>(w * h * 3), grey);
+  const std::string path = (demo.dir / name).string();
+  REQUIRE(stbi_write_png(path.c_str(), w, h, 3, px.data(), w * 3));
+  return path;
+}
+
+// Types `path` (and `caption`, if any) into the Add photo dialog and confirms it.
+void add_through_dialog(test::HeadlessUi& ui, const std::string& path, const std::string& caption = "") {
+  REQUIRE(ui.tap("add photo"));
+  REQUIRE(ui.tap("photo path"));
+  ImGui::GetIO().AddInputCharactersUTF8(path.c_str());
+  ui.frame();
+  if (!caption.empty()) {
+    REQUIRE(ui.tap("photo caption"));
+    ImGui::GetIO().AddInputCharactersUTF8(caption.c_str());
+    ui.frame();
+  }
+  REQUIRE(ui.tap("confirm add photo"));
+}
+
 }  // namespace
 
 TEST_CASE("photo viewer: the 2025 visit's photos arrive as thumbnails from the worker, then the first large") {
@@ -127,18 +180,9 @@ TEST_CASE("photo viewer: the 2025 visit's photos arrive as thumbnails from the w
   CHECK(destroyed == created);  // no texture outlives the viewer
 }
 
-TEST_CASE("photo viewer: tap a photo, mark a defect by tapping it - the marker is where the finger was, "
-          "survives reopening the file, and Undo removes it") {
-  DemoProject demo;
-  const std::string visit = visit_id(*demo.project, "2025-05-21");
-  const std::string path = demo.project->path();
-  gui::PhotoViewer viewer;  // no display: placeholders of the photo's shape
-  viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
-  ui.frame();
+TEST_CASE_FIXTURE(Viewing2025,
+                  "photo viewer: tap a photo, mark a defect by tapping it - the marker is where the finger was, "
+                  "survives reopening the file, and Undo removes it") {
   REQUIRE(frames_until(ui, [&] { return viewer.thumbnails_ready(); }));
   REQUIRE(ui.tap("photo:2"));
   REQUIRE(viewer.selected() == size_t{1});
@@ -166,8 +210,7 @@ TEST_CASE("photo viewer: tap a photo, mark a defect by tapping it - the marker i
 
   // Reopen the file: the marker was committed, not held by the view.
   viewer.close();
-  demo.project.reset();
-  demo.project.emplace(storage::Project::open(path, "test"));
+  reopen(demo);
   marker = stored_marker(*demo.project, photo, d05);
   REQUIRE(marker);
   CHECK(std::abs(marker->first - want_x) < 0.01);
@@ -183,16 +226,8 @@ TEST_CASE("photo viewer: tap a photo, mark a defect by tapping it - the marker i
   CHECK(stored_marker(*demo.project, photo, d05));
 }
 
-TEST_CASE("photo viewer: marking a defect already on the photo moves its marker (one per defect and photo)") {
-  DemoProject demo;
-  const std::string visit = visit_id(*demo.project, "2025-05-21");
-  gui::PhotoViewer viewer;
-  viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
-  ui.frame();
+TEST_CASE_FIXTURE(Viewing2025,
+                  "photo viewer: marking a defect already on the photo moves its marker (one per defect and photo)") {
   const std::string photo = viewer.visit().photos[0].id;
   REQUIRE(viewer.visit().photos[0].links.size() == 1);
   const std::string ref = viewer.visit().photos[0].links[0].defect_ref;
@@ -208,16 +243,8 @@ TEST_CASE("photo viewer: marking a defect already on the photo moves its marker 
   CHECK(count(*demo.project, "SELECT count(*) FROM photo_defect WHERE photo_id = ?1", photo) == 1);
 }
 
-TEST_CASE("photo viewer: removing a link asks first - Keep keeps it, Remove removes it, Undo brings it back") {
-  DemoProject demo;
-  const std::string visit = visit_id(*demo.project, "2025-05-21");
-  gui::PhotoViewer viewer;
-  viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
-  ui.frame();
+TEST_CASE_FIXTURE(Viewing2025,
+                  "photo viewer: removing a link asks first - Keep keeps it, Remove removes it, Undo brings it back") {
   const std::string photo = viewer.visit().photos[0].id;
   const std::string ref = viewer.visit().photos[0].links.at(0).defect_ref;
   const std::string sql = "SELECT count(*) FROM photo_defect WHERE photo_id = ?1";
@@ -237,10 +264,7 @@ TEST_CASE("photo viewer: the issued 2019 visit shows its photos but offers no ma
   const std::string visit = visit_id(*demo.project, "2019-05-14");  // issued by the demo (FIELD.md §10)
   gui::PhotoViewer viewer;
   viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
+  ViewerUi ui(viewer);
   ui.frame();
   REQUIRE_FALSE(viewer.visit().photos.empty());
   CHECK(viewer.visit().status == "issued");
@@ -267,10 +291,7 @@ TEST_CASE("photo viewer: a photo file missing from the media folder is named in 
   viewer.open(*demo.project, visit);
   const std::string file = storage::photo_file_path(demo.project->path(), viewer.visit().photos[2].file_name);
   REQUIRE(fs::remove(file));
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
+  ViewerUi ui(viewer);
   ui.frame();
   REQUIRE(ui.tap("photo:3"));
   REQUIRE(viewer.selected() == size_t{2});
@@ -282,28 +303,10 @@ TEST_CASE("photo viewer: a photo file missing from the media folder is named in 
   CHECK(viewer.photo_error().empty());
 }
 
-TEST_CASE("photo viewer: Add photo copies a typed file into the project on a worker and shows it") {
-  DemoProject demo;
-  const std::string visit = visit_id(*demo.project, "2025-05-21");
-  // A 60 x 40 PNG of the test's own; add_photo takes JPEG or PNG.
-  std::vector<uint8_t> px(60 * 40 * 3, 120);
-  const std::string source = (demo.dir / "new-photo.png").string();
-  REQUIRE(stbi_write_png(source.c_str(), 60, 40, 3, px.data(), 60 * 3));
-  gui::PhotoViewer viewer;
-  viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
-  ui.frame();
-  REQUIRE(ui.tap("add photo"));
-  REQUIRE(ui.tap("photo path"));
-  ImGui::GetIO().AddInputCharactersUTF8(source.c_str());
-  ui.frame();
-  REQUIRE(ui.tap("photo caption"));
-  ImGui::GetIO().AddInputCharactersUTF8("looking N");
-  ui.frame();
-  REQUIRE(ui.tap("confirm add photo"));
+TEST_CASE_FIXTURE(Viewing2025,
+                  "photo viewer: Add photo copies a typed file into the project on a worker and shows it") {
+  const std::string source = grey_png(demo, "new-photo.png", 60, 40, 120);
+  add_through_dialog(ui, source, "looking N");
   REQUIRE(frames_until(ui, [&] { return !viewer.importing(); }));
   CHECK(viewer.message().empty());
   CHECK(count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1", visit) == 11);
@@ -317,42 +320,22 @@ TEST_CASE("photo viewer: Add photo copies a typed file into the project on a wor
 
 namespace {
 
-// Types `path` into the Add photo dialog and confirms it.
-void add_through_dialog(test::HeadlessUi& ui, const std::string& path) {
-  REQUIRE(ui.tap("add photo"));
-  REQUIRE(ui.tap("photo path"));
-  ImGui::GetIO().AddInputCharactersUTF8(path.c_str());
-  ui.frame();
-  REQUIRE(ui.tap("confirm add photo"));
-}
-
 size_t files_in(const std::string& folder) {
   return static_cast<size_t>(std::distance(fs::directory_iterator(folder), fs::directory_iterator()));
 }
 
 }  // namespace
 
-TEST_CASE("photo viewer: Close photos during an import closes once the UI thread has stored the photo") {
-  DemoProject demo;
-  const std::string visit = visit_id(*demo.project, "2025-05-21");
-  std::vector<uint8_t> px(80 * 60 * 3, 90);
-  const std::string source = (demo.dir / "late-photo.png").string();
-  REQUIRE(stbi_write_png(source.c_str(), 80, 60, 3, px.data(), 80 * 3));
-  gui::PhotoViewer viewer;
-  viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
-  ui.frame();
+TEST_CASE_FIXTURE(Viewing2025,
+                  "photo viewer: Close photos during an import closes once the UI thread has stored the photo") {
+  const std::string source = grey_png(demo, "late-photo.png", 80, 60, 90);
   add_through_dialog(ui, source);
   // Close is offered while the worker prepares the file; the view stays until the row is stored.
   REQUIRE(ui.tap("close photos"));
   REQUIRE(frames_until(ui, [&] { return !viewer.is_open(); }));
   CHECK_FALSE(viewer.importing());
+  reopen(demo);  // the row is in the file
   const std::string path = demo.project->path();
-  demo.project.reset();
-  demo.project.emplace(storage::Project::open(path, "test"));  // reopened: the row is in the file
   CHECK(count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1 AND original_name = ?2", visit,
               "late-photo.png") == 1);
   storage::Statement q(demo.project->db(), "SELECT file_name FROM photo WHERE original_name = 'late-photo.png'");
@@ -360,21 +343,14 @@ TEST_CASE("photo viewer: Close photos during an import closes once the UI thread
   CHECK(fs::exists(storage::photo_file_path(path, q.column_text(0))));
 }
 
-TEST_CASE("photo viewer: a file that is not a photo is refused with its name - no row, no file in the media folder") {
-  DemoProject demo;
-  const std::string visit = visit_id(*demo.project, "2025-05-21");
+TEST_CASE_FIXTURE(Viewing2025,
+                  "photo viewer: a file that is not a photo is refused with its name - no row, no file in the "
+                  "media folder") {
   const std::string source = (demo.dir / "site-notes.jpg").string();
   std::ofstream(source) << "site notes, not a photo\n";
   const std::string media = storage::media_folder(demo.project->path());
   const size_t files_before = files_in(media);
   const long long rows_before = count(*demo.project, "SELECT count(*) FROM photo WHERE inspection_id = ?1", visit);
-  gui::PhotoViewer viewer;
-  viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
-  ui.frame();
   add_through_dialog(ui, source);
   REQUIRE(frames_until(ui, [&] { return !viewer.importing(); }));
   CAPTURE(viewer.message());
@@ -391,10 +367,7 @@ TEST_CASE("photo viewer: at most `keep_large` big photos stay as textures while 
   const std::string visit = visit_id(*demo.project, "2025-05-21");
   gui::PhotoViewer viewer(std::make_unique<FakeTextures>(&created, &destroyed, &sizes), 2);
   viewer.open(*demo.project, visit);
-  test::HeadlessUi ui([&] {
-    viewer.poll();
-    viewer.draw();
-  });
+  ViewerUi ui(viewer);
   ui.frame();
   REQUIRE(frames_until(ui, [&] { return viewer.thumbnails_ready() && viewer.photo_ready(); }));
   for (int i = 2; i <= 5; ++i) {
