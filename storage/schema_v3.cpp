@@ -16,7 +16,9 @@ namespace {
 // the new draft inspection and leaves the photos where they are: the copies
 // are links of a draft, so they pass, and the photos are not written.
 //
-// A new photo row given to an issued inspection is refused as well.
+// A new photo row given to an issued inspection is refused as well. And the
+// layout 1 UPDATE guards looked only at the row before the change: a draft
+// row could be moved into an issued inspection. The "move_in" guards close that.
 // The message is the one the layout 1 guards give (schema.cpp).
 constexpr const char* kLayout3Step = R"SQL(
 CREATE TRIGGER photo_defect_issued_no_INSERT BEFORE INSERT ON photo_defect
@@ -37,6 +39,22 @@ CREATE TRIGGER photo_issued_no_UPDATE BEFORE UPDATE ON photo
 WHEN (SELECT status FROM inspection WHERE id = OLD.inspection_id) = 'issued'
   OR (SELECT status FROM inspection WHERE id = NEW.inspection_id) = 'issued'
 BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;
+CREATE TRIGGER section_survey_issued_no_move_in BEFORE UPDATE ON section_survey
+WHEN (SELECT status FROM inspection WHERE id = NEW.inspection_id) = 'issued'
+BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;
+CREATE TRIGGER ring_count_issued_no_move_in BEFORE UPDATE ON ring_count
+WHEN (SELECT status FROM inspection WHERE id = NEW.inspection_id) = 'issued'
+BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;
+CREATE TRIGGER fill_depth_issued_no_move_in BEFORE UPDATE ON fill_depth
+WHEN (SELECT status FROM inspection WHERE id = NEW.inspection_id) = 'issued'
+BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;
+CREATE TRIGGER defect_issued_no_move_in BEFORE UPDATE ON defect
+WHEN (SELECT status FROM inspection WHERE id = NEW.inspection_id) = 'issued'
+BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;
+CREATE TRIGGER reading_issued_no_move_in BEFORE UPDATE ON reading
+WHEN (SELECT i.status FROM section_survey s JOIN inspection i ON i.id = s.inspection_id WHERE s.id = NEW.section_id) = 'issued'
+BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;
+
 CREATE TRIGGER photo_issued_no_DELETE BEFORE DELETE ON photo
 WHEN (SELECT status FROM inspection WHERE id = OLD.inspection_id) = 'issued'
 BEGIN SELECT RAISE(ABORT, 'the inspection is issued and read-only; make a new revision to correct it'); END;

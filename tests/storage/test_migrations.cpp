@@ -98,6 +98,7 @@ void check_photo_guards(Project& p) {
   CHECK(refused_as_issued(p, "UPDATE photo SET inspection_id = 'iss' WHERE id = 'p-none'"));  // given to it
   CHECK(refused_as_issued(p, "INSERT INTO photo (id, inspection_id, content_hash, created_at, modified_at, author) "
                              "VALUES ('p-new', 'iss', 'hash-new', 't', 't', 'x')"));  // a new photo of it
+  CHECK(refused_as_issued(p, "UPDATE defect SET inspection_id = 'iss' WHERE id = 'd-dra'"));  // a draft row moved in
   // Deleting a photo of no visit takes its links with it (ON DELETE CASCADE):
   // one that places an issued defect is refused, and the photo stays.
   CHECK(refused_as_issued(p, "DELETE FROM photo WHERE id = 'p-cross'"));
