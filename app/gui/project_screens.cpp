@@ -756,20 +756,22 @@ void ProjectScreens::draw_compare() {
   ImGui::EndTable();
 }
 
+void ProjectScreens::sign_off_step(const std::function<void()>& step) {
+  try {
+    step();
+    message_.clear();
+  } catch (const std::exception& e) {
+    message_ = e.what();  // an issued visit refuses, a locked file refuses: said on the screen
+  }
+  refresh_structure_ = true;  // not now: the caller may be iterating over the visits
+}
+
 void ProjectScreens::draw_sign_off(const storage::InspectionRecord& v) {
   same_line_if_fits(v.status == "draft" ? "Mark checked" : v.status == "checked" ? "Issue..." : "New revision...");
   if (v.status == "draft") {
     const bool pressed = ImGui::Button("Mark checked");
     probe("checked:" + v.date);
-    if (pressed) {
-      try {
-        session_.set_visit_status(v.id, "checked");
-        message_.clear();
-      } catch (const std::exception& e) {
-        message_ = e.what();
-      }
-      refresh_structure_ = true;  // not now: the caller is iterating over these visits
-    }
+    if (pressed) sign_off_step([&] { session_.set_visit_status(v.id, "checked"); });
   } else if (v.status == "checked") {
     const bool pressed = ImGui::Button("Issue...");
     probe("issue:" + v.date);
@@ -798,14 +800,8 @@ void ProjectScreens::draw_sign_off_dialogs() {
     const bool issue = ImGui::Button("Issue");
     probe("issue:confirm");
     if (issue) {
-      try {
-        session_.set_visit_status(signing_visit_, "issued");
-        message_.clear();
-      } catch (const std::exception& e) {
-        message_ = e.what();
-      }
+      sign_off_step([&] { session_.set_visit_status(signing_visit_, "issued"); });
       ImGui::CloseCurrentPopup();
-      refresh_structure_ = true;
     }
     ImGui::SameLine();
     if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
@@ -817,14 +813,8 @@ void ProjectScreens::draw_sign_off_dialogs() {
     ImGui::InputText("why", revision_reason_, sizeof revision_reason_);
     ImGui::BeginDisabled(revision_reason_[0] == '\0');
     if (ImGui::Button("Make revision")) {
-      try {
-        session_.revise_visit(signing_visit_, revision_reason_);
-        message_.clear();
-      } catch (const std::exception& e) {
-        message_ = e.what();
-      }
+      sign_off_step([&] { session_.revise_visit(signing_visit_, revision_reason_); });
       ImGui::CloseCurrentPopup();
-      refresh_structure_ = true;
     }
     ImGui::EndDisabled();
     ImGui::SameLine();

@@ -18,6 +18,7 @@
 #include "app/model/visit_comparison.hpp"
 #include "app/model/visit_geometry.hpp"
 
+#include <functional>
 #include <future>
 
 namespace soffit::gui {
@@ -76,6 +77,7 @@ class ProjectScreens {
   void open_visit_views(const std::string& date);  // defects and rings/fill of one visit
   void draw_sign_off(const storage::InspectionRecord& visit);
   void draw_sign_off_dialogs();
+  void sign_off_step(const std::function<void()>& step);  // runs one, says a refusal, re-reads the visits
   void draw_compare();
   void draw_latest_geometry();  // the structure screen's summary of its latest visit
   void show_new_section(const std::string& section_id);  // the section view on a section just made
