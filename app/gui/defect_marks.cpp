@@ -129,7 +129,7 @@ void draw_defect_legend() {
   }
   ImGui::Dummy(ImVec2(f * 6.2f, f * 1.3f));
   ImGui::SameLine();
-  ImGui::TextUnformatted("severity 1 to 5 (soffit-1-5), also written after the reference: D05 ·3");
+  ImGui::TextUnformatted("severity 1 to 5 (5 = worst), also written after the reference: D05 ·3");
   ImGui::TextWrapped("1 noted; 2 slight, recheck next visit; 3 moderate, monitor; 4 severe, refer to the engineer; "
                      "5 urgent, escalate from site.");
   ImGui::TextWrapped("Barrel: s along the intrados from the named springing, y from the named face, seen looking up. "

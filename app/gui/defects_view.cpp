@@ -743,7 +743,10 @@ void DefectsView::draw_selection() {
   if (ImGui::Button("Clear selection")) selected_id_.clear();
   probe("deselect");
   std::string text = f.ref + ": " + words(f.defect_type) + ", " + f.element;
-  if (f.severity) text += ", severity " + std::to_string(*f.severity) + " (" + f.severity_scale + ")";
+  // The scale's key (soffit-1-5) is for files; a person reads "of 5, 5 worst".
+  if (f.severity)
+    text += ", severity " + std::to_string(*f.severity) +
+            (f.severity_scale == "soffit-1-5" ? std::string(" of 5 (5 = worst)") : " (" + f.severity_scale + ")");
   if (f.length_m) text += ", length " + metres(*f.length_m);
   if (f.area_m2) {
     char buf[32];
@@ -771,7 +774,7 @@ void DefectsView::draw_defect_form(storage::DefectGeometry geometry) {
     probe(std::string("type:") + type);
   }
   ImGui::AlignTextToFramePadding();
-  ImGui::TextUnformatted("Severity (soffit-1-5):");
+  ImGui::TextUnformatted("Severity, 1 to 5 (5 = worst):");
   for (int s = 1; s <= 5; ++s) {
     same_line_if_room(f * 3.0f);
     if (button_choice(std::to_string(s).c_str(), draft_.severity == s, ImVec2(f * 3.0f, f * 2.2f))) draft_.severity = s;

@@ -445,7 +445,7 @@ void ProjectScreens::draw_register() {
   ImGui::SetNextItemWidth(ImGui::GetFontSize() * 7);
   ImGui::InputInt("years ago", &filter_.interval_years);
   filter_.interval_years = std::clamp(filter_.interval_years, 1, 20);
-  ImGui::Checkbox("Severe defects (4 or 5) at the latest visit", &filter_.severe_only);
+  ImGui::Checkbox("Severe defects (4 or 5 of 5) at the latest visit", &filter_.severe_only);
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted("Order:");
   const std::pair<const char*, app::RegisterOrder> orders[] = {{"reference", app::RegisterOrder::reference},
