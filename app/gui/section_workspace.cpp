@@ -65,7 +65,7 @@ void SectionWorkspace::check_typed(Entry& entry) {
   if (!entry.sheet) return;
   // A very long scan is not re-read at opening (a frame must not wait); a typed
   // cell is still checked by the reader when it is made.
-  if (entry.sheet->raw_rows.size() > 20000) {
+  if (entry.sheet->raw_rows.size() > 2000) {  // a few ms of parsing at most on opening
     entry.typed = entry.sheet->raw_rows.size() == entry.sheet->readings.size() && !entry.sheet->columns.empty();
     if (!entry.typed) entry.typed_note = "this section's rows were not kept as typed, so they are shown only";
     return;
